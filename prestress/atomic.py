@@ -1,0 +1,26 @@
+"""Atomic file writes: a temporary file in the same folder, then ``os.replace``."""
+
+from __future__ import annotations
+
+import contextlib
+import os
+import tempfile
+from pathlib import Path
+
+
+def write_atomic(path: str | Path, data: str | bytes) -> None:
+    """Write ``data`` to ``path`` atomically (readers see the old file or the new, never half)."""
+    target = Path(path)
+    target.parent.mkdir(parents=True, exist_ok=True)
+    mode = "wb" if isinstance(data, bytes) else "w"
+    fd, tmp = tempfile.mkstemp(prefix=f".{target.name}.", suffix=".tmp", dir=target.parent)
+    try:
+        with os.fdopen(fd, mode, **({} if isinstance(data, bytes) else {"encoding": "utf-8"})) as f:
+            f.write(data)
+            f.flush()
+            os.fsync(f.fileno())
+        os.replace(tmp, target)
+    except BaseException:
+        with contextlib.suppress(OSError):
+            os.unlink(tmp)
+        raise

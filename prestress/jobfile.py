@@ -1,0 +1,408 @@
+"""Reading a job file (TOML) into a validated :class:`prestress.model.Job`.
+
+Every field is read by name with its TOML path, so any error names the file, the field
+and what was expected; unknown (e.g. misspelt) keys are reported with the nearest valid
+key. The job-file format is documented in ``docs/job-file.md`` and by the examples.
+"""
+
+from __future__ import annotations
+
+from pathlib import Path
+
+from prestress.errors import InputError
+from prestress.materials import MODULUS_FORMULAS, concrete_modulus
+from prestress.model import (
+    FIBERS,
+    STAGES,
+    Combination,
+    Concrete,
+    Deck,
+    FiberLimit,
+    Job,
+    LimitSet,
+    LiveLoad,
+    Loads,
+    SectionRef,
+    Strand,
+    StrandRow,
+    TensionLimit,
+    Times,
+)
+from prestress.tomlread import Table, read_toml
+from prestress.units import INCH_MM, KSI_MPA, to_internal
+
+#: Loss methods the job may choose (see ``prestress.losses``).
+LOSS_METHODS = ("aashto-approximate",)
+
+#: Jacking stress limits for pretensioning, AASHTO LRFD 9th Ed. (2020) Table 5.9.2.2-1.
+JACKING_LIMIT = {"low": 0.75, "stress-relieved": 0.70}
+
+#: Plausible ranges (MPa) beyond which a strength is taken to be a units mistake.
+STRENGTH_RANGE_MPA = (10.0, 200.0)
+
+
+def _concrete(t: Table, name: str, *, at_transfer: bool) -> Concrete:
+    fc = t.quantity("fc", "stress", positive=True)
+    lo, hi = STRENGTH_RANGE_MPA
+    if not lo <= fc <= hi:
+        raise t.error(
+            "fc",
+            f"a concrete strength from {lo / KSI_MPA:.1f} to {hi / KSI_MPA:.0f} ksi "
+            f"({lo:.0f} to {hi:.0f} MPa)",
+            f"{fc / KSI_MPA:.3g} ksi",
+        )
+    fci = None
+    if at_transfer:
+        fci = t.quantity("fci", "stress", positive=True)
+        if fci > fc:
+            raise t.error(
+                "fci",
+                f"f'ci no greater than f'c ({fc / KSI_MPA:.3g} ksi)",
+                f"{fci / KSI_MPA:.3g} ksi",
+            )
+        if fci < lo:
+            raise t.error(
+                "fci", f"a concrete strength of at least {lo:.0f} MPa", f"{fci / KSI_MPA:.3g} ksi"
+            )
+    w = t.quantity("unit_weight", "unit_weight", positive=True)
+    w_mod = t.quantity("modulus_unit_weight", "unit_weight", w, positive=True)
+    if not 1.0e-5 <= w <= 3.0e-5:
+        raise t.error(
+            "unit_weight",
+            "a concrete unit weight from 64 to 190 pcf (10 to 30 kN/m^3)",
+            f"{w * 1e6:.3g} kN/m^3",
+        )
+    K1 = t.number("K1", 1.0, low=0.1, high=2.0)
+    raw = t.raw("modulus", "aashto", expected="a formula name or a stress")
+    formulas = tuple(MODULUS_FORMULAS)
+    if isinstance(raw, str) and raw.strip().lower() in formulas:
+        formula = raw.strip().lower()
+        try:
+            Ec = concrete_modulus(fc, w_mod, formula, K1)
+            Eci = concrete_modulus(fci, w_mod, formula, K1) if fci is not None else None
+        except ValueError as exc:
+            raise t.error("modulus", f"inputs within the formula's range ({exc})") from None
+        source = MODULUS_FORMULAS[formula]
+    else:
+        try:
+            Ec = to_internal(raw, "stress", field=t.field("modulus"), file=t.file)
+        except InputError:
+            raise t.error(
+                "modulus",
+                "one of "
+                + ", ".join(f"'{f}'" for f in formulas)
+                + ' or a stress such as "5000 ksi"',
+                repr(raw),
+            ) from None
+        Eci = t.quantity("modulus_at_transfer", "stress", positive=True) if at_transfer else None
+        source = "given"
+        if not 5_000.0 <= Ec <= 80_000.0:
+            raise t.error(
+                "modulus",
+                "a concrete modulus from 725 to 11,600 ksi (5 to 80 GPa)",
+                f"{Ec / KSI_MPA:.4g} ksi",
+            )
+    t.done()
+    return Concrete(name=name, fc=fc, fci=fci, unit_weight=w, Ec=Ec, Eci=Eci, modulus_source=source)
+
+
+def _strand(t: Table) -> Strand:
+    d = t.quantity("diameter", "length", positive=True)
+    area = t.quantity("area", "area", positive=True)
+    fpu = t.quantity("fpu", "stress", positive=True)
+    fpy = t.quantity("fpy", "stress", positive=True)
+    if fpy >= fpu:
+        raise t.error("fpy", "fpy less than fpu", f"{fpy / KSI_MPA:.4g} ksi")
+    Ep = t.quantity("modulus", "stress", positive=True)
+    if not 150_000.0 <= Ep <= 220_000.0:
+        raise t.error(
+            "modulus",
+            "a strand modulus from 21,750 to 31,900 ksi (150 to 220 GPa)",
+            f"{Ep / KSI_MPA:.4g} ksi",
+        )
+    relax = t.string("relaxation", "low", choices=("low", "stress-relieved"))
+    fpj = t.quantity("jacking_stress", "stress", positive=True)
+    limit = JACKING_LIMIT[relax]
+    if fpj > limit * fpu * (1 + 1e-9):
+        raise t.error(
+            "jacking_stress",
+            f"at most {limit:.2f} fpu = {limit * fpu / KSI_MPA:.1f} ksi "
+            "(AASHTO LRFD Table 5.9.2.2-1, pretensioning)",
+            f"{fpj / KSI_MPA:.4g} ksi",
+        )
+    fpbt = t.quantity("stress_before_transfer", "stress", fpj, positive=True)
+    if fpbt > fpj:
+        raise t.error("stress_before_transfer", "no more than the jacking stress")
+    t.done()
+    return Strand(
+        diameter=d,
+        area=area,
+        fpu=fpu,
+        fpy=fpy,
+        Ep=Ep,
+        relaxation=relax,
+        jacking_stress=fpj,
+        stress_before_transfer=fpbt,
+    )
+
+
+def _tension(t: Table, key: str) -> TensionLimit | None:
+    sub = t.table(key, required=False)
+    if sub is None:
+        return None
+    coeff = sub.number("coefficient", low=0.0, high=100.0)
+    unit = sub.string("root_unit", choices=("ksi", "psi", "MPa"))
+    cap = sub.quantity("cap", "stress", None, positive=True)
+    sub.done()
+    return TensionLimit(coefficient=coeff, root_unit=unit, cap=cap)
+
+
+def _fiber_limit(t: Table, default: FiberLimit | None = None) -> FiberLimit:
+    comp = t.number("compression", None, low=0.0, high=1.0) if t.has("compression") else None
+    t.raw("compression", None)
+    tens = _tension(t, "tension")
+    if default is not None:
+        comp = comp if comp is not None else default.compression_fraction
+        tens = tens if tens is not None else default.tension
+    return FiberLimit(compression_fraction=comp, tension=tens)
+
+
+def read_limits(t: Table) -> LimitSet:
+    """Read a limit set: per stage, compression fraction and tension coefficient per fiber."""
+    name = t.string("name", "limits of the job")
+    source = t.string("source", "supplied by the user")
+    stages: dict[str, dict[str, FiberLimit]] = {}
+    for stage in STAGES:
+        st = t.table(stage, required=False)
+        if st is None:
+            continue
+        base = _fiber_limit(st)
+        fibers: dict[str, FiberLimit] = {}
+        for fiber in FIBERS:
+            sub = st.table(fiber, required=False)
+            if sub is not None:
+                fibers[fiber] = _fiber_limit(sub, None if fiber == "deck_top" else base)
+                sub.done()
+            elif fiber != "deck_top":
+                fibers[fiber] = base
+        st.string("note", "")
+        st.done()
+        stages[stage] = fibers
+    t.done()
+    if not stages:
+        raise InputError(
+            "limits for at least one of the stages " + ", ".join(STAGES), file=t.file, field=t.path
+        )
+    return LimitSet(name=name, source=source, stages=stages)
+
+
+def _section(g: Table) -> SectionRef:
+    raw = g.raw("section", expected="a section name from the library or an inline table")
+    if isinstance(raw, str):
+        return SectionRef(name=raw)
+    if isinstance(raw, dict):
+        s = g.table("section")
+        assert s is not None
+        name = s.string("name", "inline section")
+        family = s.string("family")
+        dims = s.raw("dimensions", expected="a table of dimensions")
+        if not isinstance(dims, dict):
+            raise s.error("dimensions", "a table of dimensions")
+        s.done()
+        return SectionRef(name=name, family=family, dimensions=dims)
+    raise g.error("section", "a section name or an inline table", type(raw).__name__)
+
+
+def _live(t: Table | None) -> LiveLoad:
+    if t is None:
+        return LiveLoad(moment_midspan=0.0, moments_tenth_points=None)
+    if t.has("moments"):
+        raw = t.raw("moments")
+        if not isinstance(raw, list) or len(raw) != 11:
+            raise t.error("moments", "a list of 11 moments at the tenth points of the span")
+        vals = tuple(
+            to_internal(v, "moment", field=f"{t.field('moments')}[{i}]", file=t.file)
+            for i, v in enumerate(raw)
+        )
+        t.raw("moment_midspan", None)
+        t.done()
+        return LiveLoad(moment_midspan=None, moments_tenth_points=vals)
+    m = t.quantity("moment_midspan", "moment", non_negative=True)
+    t.string("note", "")
+    t.done()
+    return LiveLoad(moment_midspan=m, moments_tenth_points=None)
+
+
+def _percent(t: Table, key: str) -> float:
+    raw = t.raw(key, expected='a relative humidity in percent, e.g. 70 or "70 percent"')
+    if isinstance(raw, int | float) and not isinstance(raw, bool):
+        value = float(raw)
+    else:
+        value = 100.0 * to_internal(raw, "dimensionless", field=t.field(key), file=t.file)
+    if not 0.0 <= value <= 100.0:
+        raise t.error(key, "a relative humidity from 0 to 100 percent", f"{value:g}")
+    return value
+
+
+def load_job(path: str | Path) -> Job:
+    """Read and validate a job file; raise InputError naming the field on any mistake."""
+    path = Path(path)
+    file = str(path)
+    top = Table(read_toml(path), file=file)
+
+    job = top.table("job")
+    assert job is not None
+    title = job.string("title")
+    project = job.string("project", "")
+    owner = job.string("owner", "")
+    engineer = job.string("engineer", "")
+    units = job.string("units", "US", choices=("US", "SI"))
+    lib_raw = job.raw("section_libraries", [], expected="a list of folders")
+    if not isinstance(lib_raw, list) or not all(isinstance(p, str) for p in lib_raw):
+        raise job.error("section_libraries", "a list of folder paths (strings)")
+    libs = tuple(str(path.parent / p) if not Path(p).is_absolute() else p for p in lib_raw)
+    job.done()
+
+    g = top.table("girder")
+    assert g is not None
+    section = _section(g)
+    length = g.quantity("length", "length", positive=True)
+    span = g.quantity("span", "length", positive=True)
+    if span > length:
+        raise g.error(
+            "span", "a design span no longer than the girder length", f"{span / 304.8:.4g} ft"
+        )
+    if not 1000.0 <= length <= 100_000.0:
+        raise g.error("length", "a girder length from 1 m to 100 m (3.3 to 330 ft)")
+    gc = g.table("concrete")
+    assert gc is not None
+    girder_concrete = _concrete(gc, "girder", at_transfer=True)
+    g.done()
+
+    deck = None
+    d = top.table("deck", required=False)
+    if d is not None:
+        dc = d.table("concrete")
+        assert dc is not None
+        deck_concrete = _concrete(dc, "deck", at_transfer=False)
+        eff = d.quantity("effective_width", "length", positive=True)
+        deck = Deck(
+            thickness=d.quantity("thickness", "length", positive=True),
+            wearing_surface=d.quantity("wearing_surface", "length", 0.0, non_negative=True),
+            effective_width=eff,
+            tributary_width=d.quantity("tributary_width", "length", eff, positive=True),
+            haunch=d.quantity("haunch", "length", 0.0, non_negative=True),
+            haunch_width=d.quantity("haunch_width", "length", 0.0, non_negative=True),
+            haunch_in_stiffness=d.boolean("haunch_in_stiffness", False),
+            concrete=deck_concrete,
+        )
+        d.done()
+
+    s = top.table("strand")
+    assert s is not None
+    strand = _strand(s)
+
+    st = top.table("strands")
+    assert st is not None
+    rows = []
+    for r in st.tables("rows"):
+        rows.append(
+            StrandRow(
+                height=r.quantity("height", "length", positive=True),
+                count=r.integer("count", low=1),
+                spacing=r.quantity("spacing", "length", 2.0 * INCH_MM, positive=True),
+            )
+        )
+        r.done()
+    lt_default = 60.0 * strand.diameter
+    lt = st.quantity("transfer_length", "length", lt_default, positive=True)
+    lt_source = (
+        "AASHTO LRFD 9th Ed. (2020) 5.9.4.3.1 (60 d_b)" if lt == lt_default else "given in the job"
+    )
+    st.done()
+
+    ld = top.table("loads", required=False)
+    if ld is None:
+        loads = Loads(0.0, 0.0, 0.0, _live(None))
+    else:
+        loads = Loads(
+            superimposed_dead=ld.quantity("superimposed_dead", "line_load", 0.0, non_negative=True),
+            wearing_surface=ld.quantity("wearing_surface", "line_load", 0.0, non_negative=True),
+            other_noncomposite=ld.quantity(
+                "other_noncomposite", "line_load", 0.0, non_negative=True
+            ),
+            live=_live(ld.table("live", required=False)),
+        )
+        ld.done()
+
+    tm = top.table("time")
+    assert tm is not None
+    rh = _percent(tm, "relative_humidity")
+    ages = {}
+    for key in ("transfer", "deck_placement", "final"):
+        ages[key] = tm.quantity(key, "time", positive=True)
+    if not ages["transfer"] < ages["deck_placement"]:
+        raise tm.error("deck_placement", "an age later than transfer")
+    if not ages["deck_placement"] < ages["final"]:
+        raise tm.error("final", "an age later than deck placement")
+    tm.done()
+    times = Times(relative_humidity=rh, **ages)
+
+    ls = top.table("losses", required=False)
+    method = "aashto-approximate"
+    if ls is not None:
+        method = ls.string("method", method, choices=LOSS_METHODS)
+        ls.done()
+
+    combos = {
+        "service_permanent": Combination(1.0, 0.0),
+        "service_i": Combination(1.0, 1.0),
+        "service_iii": Combination(1.0, 0.8),
+    }
+    cb = top.table("combinations", required=False)
+    if cb is not None:
+        for key in ("service_i", "service_iii"):
+            c = cb.table(key, required=False)
+            if c is not None:
+                combos[key] = Combination(
+                    dead=c.number("dead", combos[key].dead, low=0, high=5),
+                    live=c.number("live", combos[key].live, low=0, high=5),
+                )
+                c.done()
+        cb.done()
+
+    lim = top.table("limits")
+    assert lim is not None
+    if lim.has("file"):
+        ref = lim.string("file")
+        lim.done()
+        lpath = (path.parent / ref) if not Path(ref).is_absolute() else Path(ref)
+        lt_top = Table(read_toml(lpath), file=str(lpath))
+        limits = read_limits(lt_top)
+    else:
+        limits = read_limits(lim)
+
+    top.done()
+    return Job(
+        file=file,
+        title=title,
+        project=project,
+        owner=owner,
+        engineer=engineer,
+        units=units,
+        section=section,
+        length=length,
+        span=span,
+        girder_concrete=girder_concrete,
+        deck=deck,
+        strand=strand,
+        rows=tuple(rows),
+        loads=loads,
+        times=times,
+        limits=limits,
+        loss_method=method,
+        transfer_length=lt,
+        transfer_length_source=lt_source,
+        combinations=combos,
+        library_paths=libs,
+    )

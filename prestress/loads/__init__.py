@@ -1,0 +1,1 @@
+"""Loads and actions on the girder (engine level, internal units)."""

@@ -1,0 +1,150 @@
+"""Losses of pretensioned girders: elastic shortening and the AASHTO approximate estimate.
+
+Works in the internal system (MPa, N, mm) and converts once to the code's ksi/in for the
+equations of :mod:`prestress.codes.aashto_lrfd.losses`.
+"""
+
+from __future__ import annotations
+
+from typing import TYPE_CHECKING
+
+from prestress.codes.aashto_lrfd import losses as aashto
+from prestress.losses import LossBreakdown, LossComponent, register
+from prestress.units import KSI_MPA
+
+if TYPE_CHECKING:
+    from prestress.analysis import Girder
+
+
+def elastic_shortening_iterative(
+    A_ps: float,
+    f_pbt: float,
+    A_g: float,
+    I_g: float,
+    e: float,
+    M_g: float,
+    E_ci: float,
+    E_p: float,
+    *,
+    tol: float = 1e-9,
+    max_iter: int = 200,
+) -> float:
+    """AASHTO LRFD 9th Ed. (2020) Eq. 5.9.3.2.3a-1 solved by fixed-point iteration (any units).
+
+    ΔfpES = Ep/Eci fcgp, with fcgp = P/Ag + P e²/Ig − Mg e/Ig and P = Aps (fpbt − ΔfpES),
+    iterated from ΔfpES = 0 until the change is below ``tol`` times fpbt. It converges to the
+    closed form of Eq. C5.9.3.2.3a-1 (the equation is linear in ΔfpES).
+    """
+    loss = 0.0
+    for _ in range(max_iter):
+        P = A_ps * (f_pbt - loss)
+        new = aashto.delta_f_pES(E_p, E_ci, aashto.f_cgp(P, A_g, I_g, e, M_g))
+        if abs(new - loss) <= tol * f_pbt:
+            return new
+        loss = new
+    raise ArithmeticError("elastic shortening iteration did not converge")
+
+
+def elastic_shortening_gross(girder: Girder) -> tuple[float, dict[str, tuple[float, str]]]:
+    """Elastic shortening loss on gross properties at the girder's midspan (MPa) and figures."""
+    job = girder.job
+    g = girder.gross
+    e_m = girder.eccentricity_gross
+    M_g = girder.self_weight * job.length**2 / 8.0  # girder on its own length, ends supported
+    Eci = job.girder_concrete.Eci
+    assert Eci is not None
+    loss = aashto.delta_f_pES_closed_form(
+        job.A_ps, job.strand.stress_before_transfer, g.Ix, e_m, g.area, M_g, Eci, job.strand.Ep
+    )
+    P_i = job.A_ps * (job.strand.stress_before_transfer - loss)
+    figures = {
+        "f_pbt": (job.strand.stress_before_transfer, "stress"),
+        "A_ps": (job.A_ps, "area"),
+        "e_m": (e_m, "dimension"),
+        "M_g (girder length)": (M_g, "moment"),
+        "E_ci": (Eci, "modulus_e"),
+        "E_p": (job.strand.Ep, "modulus_e"),
+        "f_cgp": (aashto.f_cgp(P_i, g.area, g.Ix, e_m, M_g), "stress"),
+    }
+    return loss, figures
+
+
+@register("aashto-approximate")
+def aashto_approximate(girder: Girder) -> LossBreakdown:
+    """Elastic shortening (C5.9.3.2.3a-1, gross section) and the approximate estimate (5.9.3.3)."""
+    job = girder.job
+    strand = job.strand
+    es, figures = elastic_shortening_gross(girder)
+    fci_ksi = job.girder_concrete.fci / KSI_MPA  # type: ignore[operator]
+    lt = aashto.delta_f_pLT_approximate(
+        strand.stress_before_transfer / KSI_MPA,
+        job.A_ps,
+        girder.gross.area,
+        job.times.relative_humidity,
+        fci_ksi,
+        aashto.DELTA_F_PR_LOW_RELAXATION_KSI if strand.relaxation == "low" else 10.0,
+    )
+    figures["gamma_h"] = (lt["gamma_h"], "ratio")
+    figures["gamma_st"] = (lt["gamma_st"], "ratio")
+    comps = []
+    before = strand.jacking_stress - strand.stress_before_transfer
+    if before > 0:
+        comps.append(
+            LossComponent(
+                "before_transfer",
+                "Losses in the bed before transfer",
+                before,
+                "before transfer",
+                "given in the job (fpj − fpbt)",
+            )
+        )
+    clause = "AASHTO LRFD 9th Ed. (2020) Eq. 5.9.3.3-1"
+    comps += [
+        LossComponent(
+            "elastic_shortening",
+            "Elastic shortening",
+            es,
+            "at transfer",
+            "AASHTO LRFD 9th Ed. (2020) Eq. C5.9.3.2.3a-1, gross",
+        ),
+        LossComponent(
+            "creep",
+            "Creep of the girder concrete",
+            lt["creep"] * KSI_MPA,
+            "long term",
+            clause + " (creep term)",
+        ),
+        LossComponent(
+            "shrinkage",
+            "Shrinkage of the girder concrete",
+            lt["shrinkage"] * KSI_MPA,
+            "long term",
+            clause + " (shrinkage term)",
+        ),
+        LossComponent(
+            "relaxation",
+            "Relaxation of the strand",
+            lt["relaxation"] * KSI_MPA,
+            "long term",
+            clause + " (ΔfpR)",
+        ),
+    ]
+    notes = []
+    if strand.relaxation != "low":
+        notes.append(
+            "ΔfpR = 10 ksi used for stress-relieved strand (5.9.3.3 commentary); "
+            "the approximate method is intended for low-relaxation strand."
+        )
+    f_pt = strand.stress_before_transfer - es
+    f_pe = f_pt - (lt["total"] * KSI_MPA)
+    return LossBreakdown(
+        method="aashto-approximate",
+        title="AASHTO LRFD 9th Ed. (2020): elastic shortening C5.9.3.2.3a-1 on the gross section; "
+        "approximate long-term estimate 5.9.3.3",
+        jacking_stress=strand.jacking_stress,
+        components=tuple(comps),
+        f_pt=f_pt,
+        f_pe=f_pe,
+        figures=figures,
+        notes=tuple(notes),
+    )

@@ -1,0 +1,253 @@
+"""The job model: plain frozen dataclasses, validated, every quantity in internal units.
+
+Internal base system: mm, N, MPa, N*mm, N/mm, N/mm^3, day (see :mod:`prestress.units`).
+Positions along the girder are measured from its left end (mm); heights from its bottom (mm).
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass, field
+
+import numpy as np
+
+
+@dataclass(frozen=True)
+class Concrete:
+    """A concrete: strengths, unit weight and elastic moduli (MPa, N/mm^3).
+
+    Attributes:
+        name: label, e.g. "girder" or "deck".
+        fc: specified 28-day (design) compressive strength f'c, MPa.
+        fci: strength at transfer f'ci, MPa (None for a cast-in-place deck).
+        unit_weight: unit weight for dead load, N/mm^3.
+        Ec: modulus at the design strength, MPa.
+        Eci: modulus at transfer, MPa (None for a deck).
+        modulus_source: how the moduli were obtained (formula and clause, or "given").
+    """
+
+    name: str
+    fc: float
+    fci: float | None
+    unit_weight: float
+    Ec: float
+    Eci: float | None
+    modulus_source: str
+
+
+@dataclass(frozen=True)
+class Strand:
+    """A prestressing strand type (mm, mm^2, MPa)."""
+
+    diameter: float
+    area: float
+    fpu: float
+    fpy: float
+    Ep: float
+    relaxation: str  # "low" or "stress-relieved"
+    jacking_stress: float
+    stress_before_transfer: float  # fpbt: jacking stress less any loss before transfer
+
+
+@dataclass(frozen=True)
+class StrandRow:
+    """A horizontal row of straight, fully bonded strands (mm from the girder bottom)."""
+
+    height: float
+    count: int
+    spacing: float
+
+    def x_positions(self) -> np.ndarray:
+        """Horizontal positions of the strands, centred on the girder axis (mm)."""
+        return (np.arange(self.count) - (self.count - 1) / 2.0) * self.spacing
+
+
+@dataclass(frozen=True)
+class Deck:
+    """Cast-in-place deck slab on the girder (mm).
+
+    Attributes:
+        thickness: structural thickness (excluding any sacrificial wearing surface).
+        wearing_surface: integral sacrificial thickness; its weight counts, not its stiffness.
+        effective_width: effective flange width of the deck for the composite section.
+        tributary_width: width of deck carried by this girder for dead load (girder spacing).
+        haunch: haunch (build-up) thickness between girder top and deck soffit.
+        haunch_width: haunch width (usually the girder's top flange width).
+        haunch_in_stiffness: whether the haunch counts in the composite section.
+        concrete: the deck concrete.
+    """
+
+    thickness: float
+    wearing_surface: float
+    effective_width: float
+    tributary_width: float
+    haunch: float
+    haunch_width: float
+    haunch_in_stiffness: bool
+    concrete: Concrete
+
+
+@dataclass(frozen=True)
+class LiveLoad:
+    """Live-load moment per girder (including dynamic allowance and distribution), N*mm.
+
+    Either a midspan value (distributed as a parabola along the span, which is the shape of
+    the envelope of a uniform load; the result is flagged as such) or values at the tenth
+    points of the design span (11 values, bearing to bearing).
+    """
+
+    moment_midspan: float | None
+    moments_tenth_points: tuple[float, ...] | None
+
+    def moment_at(self, x_from_bearing: np.ndarray, span: float) -> np.ndarray:
+        """Live-load moment at positions measured from the left bearing (N*mm)."""
+        x = np.clip(np.asarray(x_from_bearing, dtype=float), 0.0, span)
+        if self.moments_tenth_points is not None:
+            xs = np.linspace(0.0, span, 11)
+            return np.interp(x, xs, np.asarray(self.moments_tenth_points))
+        assert self.moment_midspan is not None
+        return 4.0 * self.moment_midspan * x * (span - x) / span**2
+
+
+@dataclass(frozen=True)
+class Loads:
+    """Loads per girder other than self-weight (N/mm, N*mm).
+
+    Attributes:
+        superimposed_dead: DC on the composite section (barriers, railings), N/mm.
+        wearing_surface: DW on the composite section (future wearing surface, utilities), N/mm.
+        other_noncomposite: further uniform dead load on the girder alone (e.g. stay-in-place
+            forms), N/mm.
+        live: the live-load moment.
+    """
+
+    superimposed_dead: float
+    wearing_surface: float
+    other_noncomposite: float
+    live: LiveLoad
+
+
+@dataclass(frozen=True)
+class Times:
+    """Environment and ages (percent, days after casting the girder)."""
+
+    relative_humidity: float
+    transfer: float
+    deck_placement: float
+    final: float
+
+
+@dataclass(frozen=True)
+class TensionLimit:
+    """Tension limit: coefficient × √(strength in ``root_unit``), in ``root_unit``, capped.
+
+    Stored with the coefficient and unit as written, so reports can echo the formula.
+    """
+
+    coefficient: float
+    root_unit: str  # "ksi", "psi" or "MPa"
+    cap: float | None  # MPa, or None
+
+    def value(self, strength_mpa: float) -> float:
+        """The limit (MPa, positive) for a concrete strength (MPa)."""
+        from prestress.units import KSI_MPA
+
+        unit_mpa = {"ksi": KSI_MPA, "psi": KSI_MPA / 1000.0, "MPa": 1.0}[self.root_unit]
+        limit = self.coefficient * (strength_mpa / unit_mpa) ** 0.5 * unit_mpa
+        return min(limit, self.cap) if self.cap is not None else limit
+
+    def text(self) -> str:
+        """The limit's formula in words, e.g. '0.24√f (f in ksi)'."""
+        cap = "" if self.cap is None else " with a cap"
+        return f"{self.coefficient:g}√f ({self.root_unit}){cap}"
+
+
+@dataclass(frozen=True)
+class FiberLimit:
+    """Limits at one fiber for one stage: compression as a fraction of the strength, tension."""
+
+    compression_fraction: float | None
+    tension: TensionLimit | None
+
+
+#: The fibers checked: girder bottom, girder top and (on the composite section) deck top.
+FIBERS = ("girder_bottom", "girder_top", "deck_top")
+
+#: The stages/cases of the first calculation path, in order.
+STAGES = ("transfer", "service_permanent", "service_i", "service_iii")
+
+
+@dataclass(frozen=True)
+class LimitSet:
+    """Stress limits as data: for each stage name, for each fiber, a FiberLimit."""
+
+    name: str
+    source: str
+    stages: dict[str, dict[str, FiberLimit]]
+
+    def get(self, stage: str, fiber: str) -> FiberLimit | None:
+        """The limits of a fiber in a stage, or None when none is given."""
+        return self.stages.get(stage, {}).get(fiber)
+
+
+@dataclass(frozen=True)
+class Combination:
+    """Load factors of a service combination."""
+
+    dead: float
+    live: float
+
+
+@dataclass(frozen=True)
+class SectionRef:
+    """Which section the girder uses: a library name, or an inline definition."""
+
+    name: str
+    family: str | None = None
+    dimensions: dict | None = None  # raw inline dimensions (parsed by the family)
+
+
+@dataclass(frozen=True)
+class Job:
+    """A complete, validated job (internal units)."""
+
+    file: str
+    title: str
+    project: str
+    owner: str
+    engineer: str
+    units: str  # "US" or "SI": output system
+    section: SectionRef
+    length: float
+    span: float
+    girder_concrete: Concrete
+    deck: Deck | None
+    strand: Strand
+    rows: tuple[StrandRow, ...]
+    loads: Loads
+    times: Times
+    limits: LimitSet
+    loss_method: str
+    transfer_length: float
+    transfer_length_source: str
+    combinations: dict[str, Combination]
+    library_paths: tuple[str, ...] = field(default_factory=tuple)
+
+    @property
+    def bearing_offset(self) -> float:
+        """Distance from each girder end to the bearing centreline (mm), span centred."""
+        return (self.length - self.span) / 2.0
+
+    @property
+    def strand_count(self) -> int:
+        """Total number of strands."""
+        return sum(r.count for r in self.rows)
+
+    @property
+    def A_ps(self) -> float:
+        """Total prestressing steel area (mm^2)."""
+        return self.strand_count * self.strand.area
+
+    @property
+    def y_ps(self) -> float:
+        """Height of the centroid of the prestressing steel above the girder bottom (mm)."""
+        return sum(r.count * r.height for r in self.rows) / self.strand_count

@@ -1,0 +1,1 @@
+"""Presenters: console tables, JSON and other outputs of the results."""

@@ -1,0 +1,347 @@
+"""Console presentation of a check with rich: header, properties, losses, one table per stage.
+
+Every stress table's caption states the unit and the sign convention.
+"""
+
+from __future__ import annotations
+
+from rich import box
+from rich.console import Console, Group
+from rich.panel import Panel
+from rich.table import Table
+from rich.text import Text
+
+from prestress.analysis import SIGN_CONVENTION, CheckResult, FiberResult, StageResult
+from prestress.present.common import CAUTION, FIBER_NAMES, fmt, label, signed
+
+PASS = "[green]ok[/]"
+FAIL = "[bold red]FAIL[/]"
+
+
+def _kv_table(rows: list[tuple[str, str]], title: str) -> Table:
+    t = Table(
+        box=None,
+        show_header=False,
+        title=title,
+        title_justify="left",
+        title_style="bold",
+        pad_edge=False,
+    )
+    t.add_column(style="dim", no_wrap=True)
+    t.add_column()
+    for k, v in rows:
+        t.add_row(k, v)
+    return t
+
+
+def header(result: CheckResult, system: str) -> Panel:
+    """Job, girder, section and materials."""
+    g = result.girder
+    job = g.job
+    gc = job.girder_concrete
+    st = job.strand
+    u = lambda role: label(system, role)  # noqa: E731
+    rows = [
+        ("Job", job.title),
+        ("Project", job.project or "—"),
+        ("Owner", job.owner or "—"),
+        ("Engineer", job.engineer or "—"),
+        ("Job file", job.file),
+        ("Section", f"{g.section_name}  ({g.section_source or 'no source given'})"),
+        (
+            "Girder",
+            f"length {fmt(job.length, system, 'position')} {u('position')}, "
+            f"design span {fmt(job.span, system, 'position')} {u('position')}",
+        ),
+        (
+            "Girder concrete",
+            f"f'ci {fmt(gc.fci, system, 'stress')} {u('stress')}, "
+            f"f'c {fmt(gc.fc, system, 'stress')} {u('stress')}, "
+            f"Eci {fmt(gc.Eci, system, 'modulus_e')} {u('modulus_e')}, "
+            f"Ec {fmt(gc.Ec, system, 'modulus_e')} {u('modulus_e')} "
+            f"({gc.modulus_source})",
+        ),
+    ]
+    if job.deck is not None:
+        dc = job.deck.concrete
+        rows.append(
+            (
+                "Deck concrete",
+                f"f'c {fmt(dc.fc, system, 'stress')} {u('stress')}, "
+                f"Ec {fmt(dc.Ec, system, 'modulus_e')} {u('modulus_e')}, "
+                f"modular ratio n = {g.n_deck:.3f}",
+            )
+        )
+    rows += [
+        (
+            "Strands",
+            f"{job.strand_count} × {fmt(st.diameter, system, 'dimension')} {u('dimension')}"
+            f" ({st.relaxation}-relaxation), Aps {fmt(job.A_ps, system, 'area')} "
+            f"{u('area')}, fpu {fmt(st.fpu, system, 'stress')} {u('stress')}, "
+            f"fpj {fmt(st.jacking_stress, system, 'stress')} {u('stress')}, "
+            f"Ep {fmt(st.Ep, system, 'modulus_e')} {u('modulus_e')}",
+        ),
+        (
+            "Strand centroid",
+            f"{fmt(job.y_ps, system, 'dimension')} {u('dimension')} above the "
+            f"bottom; e = {fmt(g.eccentricity_gross, system, 'dimension')} "
+            f"{u('dimension')} below the girder centroid",
+        ),
+        (
+            "Transfer length",
+            f"{fmt(job.transfer_length, system, 'dimension')} {u('dimension')} "
+            f"({job.transfer_length_source})",
+        ),
+        ("Limits", f"{job.limits.name} — {job.limits.source}"),
+    ]
+    return Panel(
+        _kv_table(rows, ""), title="[bold]prestress check[/]", title_align="left", box=box.ROUNDED
+    )
+
+
+def properties(result: CheckResult, system: str) -> Table:
+    """Gross girder and composite section properties."""
+    g = result.girder
+    gross = g.gross
+    c = g.composite_section
+    t = Table(
+        title="Section properties",
+        title_justify="left",
+        title_style="bold",
+        box=box.SIMPLE_HEAD,
+        caption="Composite: deck transformed into girder concrete by n; "
+        "V/S with every outer face exposed.",
+        caption_justify="left",
+    )
+    t.add_column("Property")
+    t.add_column("Girder (gross)", justify="right", no_wrap=True)
+    if c is not None:
+        t.add_column("Composite", justify="right", no_wrap=True)
+    t.add_column("Unit")
+
+    def row(name: str, a: float | None, b: float | None, role: str) -> None:
+        cells = [name, fmt(a, system, role)]
+        if c is not None:
+            cells.append(fmt(b, system, role))
+        t.add_row(*cells, label(system, role))
+
+    row("Area A", gross.area, c.area if c else None, "area")
+    row("Centroid above girder bottom yb", gross.yb, c.yb if c else None, "dimension")
+    row("Moment of inertia I", gross.Ix, c.I if c else None, "inertia")
+    row(
+        "Section modulus, girder bottom Sb",
+        gross.Sb,
+        c.S("girder_bottom") if c else None,
+        "modulus",
+    )
+    row("Section modulus, girder top St", gross.St, c.S("girder_top") if c else None, "modulus")
+    if c is not None:
+        row("Section modulus, deck top", None, c.S("deck_top"), "modulus")
+    row("Depth", gross.height, c.fibers["deck_top"] if c else None, "dimension")
+    row("Volume-to-surface V/S", gross.volume_to_surface, None, "dimension")
+    row("Girder self-weight", g.self_weight, None, "line_load")
+    row("Non-composite dead load (deck, haunch)", g.deck_weight, None, "line_load")
+    return t
+
+
+def losses(result: CheckResult, system: str) -> Table:
+    """The loss breakdown of the job's method."""
+    L = result.losses
+    A = result.girder.job.A_ps
+    su = label(system, "stress")
+    t = Table(
+        title=f"Prestress losses — {L.method}",
+        title_justify="left",
+        title_style="bold",
+        box=box.SIMPLE_HEAD,
+        caption=L.title,
+        caption_justify="left",
+    )
+    t.add_column("Mechanism")
+    t.add_column("When")
+    t.add_column(f"Loss ({su})", justify="right", no_wrap=True)
+    t.add_column("% of fpj", justify="right", no_wrap=True)
+    t.add_column("Source")
+    for comp in L.components:
+        mark = "" if comp.applied else " (reported, not applied)"
+        t.add_row(
+            comp.label + mark,
+            comp.period,
+            fmt(comp.value, system, "stress", 2),
+            f"{100 * comp.value / L.jacking_stress:.1f}",
+            comp.short_clause,
+        )
+    t.add_section()
+    t.add_row(
+        "[bold]Total[/]",
+        "",
+        f"[bold]{fmt(L.total, system, 'stress', 2)}[/]",
+        f"[bold]{100 * L.total / L.jacking_stress:.1f}[/]",
+        "",
+    )
+    fu = label(system, "force")
+    t.add_row(
+        "Jacking stress fpj",
+        "",
+        fmt(L.jacking_stress, system, "stress", 2),
+        "100.0",
+        f"force {fmt(L.jacking_stress * A, system, 'force', 1)} {fu}",
+    )
+    t.add_row(
+        "Stress after transfer fpt",
+        "",
+        fmt(L.f_pt, system, "stress", 2),
+        f"{100 * L.f_pt / L.jacking_stress:.1f}",
+        f"force {fmt(L.f_pt * A, system, 'force', 1)} {fu}",
+    )
+    t.add_row(
+        "Effective stress fpe",
+        "final",
+        fmt(L.f_pe, system, "stress", 2),
+        f"{100 * L.f_pe / L.jacking_stress:.1f}",
+        f"force {fmt(L.f_pe * A, system, 'force', 1)} {fu}",
+    )
+    return t
+
+
+def _cell(f: FiberResult | None, system: str) -> str:
+    if f is None:
+        return ""
+    text = signed(f.stress, system, "stress")
+    return text if f.ok else f"[bold red]{text}[/]"
+
+
+SHORT_FIBER = {"girder_bottom": "bottom", "girder_top": "top", "deck_top": "deck"}
+
+
+def stage_table(stage: StageResult, number: int, system: str) -> Group:
+    """One stage: stations as rows, fiber stresses, governing utilisation and mark."""
+    fibers = [
+        f
+        for f in ("girder_bottom", "girder_top", "deck_top")
+        if any(f in s.fibers for s in stage.stations)
+    ]
+    su = label(system, "stress")
+    is_service = any(s.x_bearing is not None for s in stage.stations)
+    origin = "the left bearing" if is_service else "the left girder end"
+    units = (
+        f"x in {label(system, 'position')} from {origin}; P in {label(system, 'force')}; "
+        f"e in {label(system, 'dimension')} below the girder centroid; M in "
+        f"{label(system, 'moment')}; stresses in {su}, {SIGN_CONVENTION}."
+    )
+    t = Table(
+        title=f"Stage {number} — {stage.title}" + ("" if stage.ok else "  [bold red]EXCEEDED[/]"),
+        title_justify="left",
+        title_style="bold",
+        box=box.SIMPLE_HEAD,
+        caption=units,
+        caption_justify="left",
+    )
+    t.add_column("Station", no_wrap=True)
+    for col in ("x", "P", "e", "M"):
+        t.add_column(col, justify="right", no_wrap=True)
+    for f in fibers:
+        t.add_column(SHORT_FIBER[f].capitalize(), justify="right", no_wrap=True)
+    t.add_column("Governs", no_wrap=True)
+    t.add_column("Use", justify="right", no_wrap=True)
+    t.add_column("", no_wrap=True)
+    for s in stage.stations:
+        gov = s.governing()
+        gov_text = SHORT_FIBER[gov[0]] if gov else "—"
+        use = "—" if gov is None else (">1" if gov[1] == float("inf") else f"{gov[1]:.2f}")
+        t.add_row(
+            s.name,
+            fmt(s.x_bearing if is_service else s.x, system, "position", 2),
+            fmt(s.force, system, "force", 1),
+            fmt(s.eccentricity, system, "dimension", 2),
+            fmt(s.moment, system, "moment", 1),
+            *[_cell(s.fibers.get(f), system) for f in fibers],
+            gov_text,
+            use,
+            PASS if s.ok else FAIL,
+        )
+    lines = []
+    for f in fibers:
+        fr = next((s.fibers[f] for s in stage.stations if f in s.fibers), None)
+        if fr is None:
+            continue
+        parts = []
+        if fr.compression_limit is not None:
+            parts.append(f"compression {signed(fr.compression_limit, system, 'stress')}")
+        if fr.tension_limit is not None:
+            parts.append(f"tension {signed(fr.tension_limit, system, 'stress')}")
+        rule = f" ({fr.limit_text})" if parts else ""
+        lines.append(
+            f"  {FIBER_NAMES[f]}: " + (", ".join(parts) + rule if parts else "not checked")
+        )
+    limits = Text.from_markup(f"[dim]Limits ({su}):[/]\n" + "\n".join(lines))
+    what = Text.from_markup(f"[dim]Acting: {stage.description}.[/]")
+    notes = [Text.from_markup(f"[dim]Note: {n}[/]") for n in stage.notes]
+    return Group(t, what, limits, *notes, Text(""))
+
+
+def summary(result: CheckResult) -> Table:
+    """Governing station and utilisation per stage."""
+    t = Table(title="Summary", title_justify="left", title_style="bold", box=box.SIMPLE_HEAD)
+    t.add_column("Stage")
+    t.add_column("Governing station")
+    t.add_column("Fiber")
+    t.add_column("Use", justify="right")
+    t.add_column("")
+    for i, s in enumerate(result.stages, 1):
+        gov = s.governing()
+        if gov is None:
+            t.add_row(f"{i}. {s.title}", "—", "—", "—", PASS if s.ok else FAIL)
+            continue
+        st, fiber, u = gov
+        use = ">1" if u == float("inf") else f"{u:.2f}"
+        t.add_row(f"{i}. {s.title}", st.name, FIBER_NAMES[fiber], use, PASS if s.ok else FAIL)
+    return t
+
+
+def verdict(result: CheckResult) -> str:
+    """The one-line verdict."""
+    govs = [(s, s.governing()) for s in result.stages]
+    govs = [(s, g) for s, g in govs if g is not None]
+    if result.ok:
+        if not govs:
+            return "[bold green]PASS[/]: no limit was checked."
+        s, (st, fiber, u) = max(govs, key=lambda sg: sg[1][2])
+        return (
+            f"[bold green]PASS[/]: every checked fiber at every station is within its limit; "
+            f"highest utilisation {u:.2f} ({s.title}, {FIBER_NAMES[fiber]} at {st.name})."
+        )
+    failing = [s for s in result.stages if not s.ok]
+    worst = ", ".join(
+        f"{s.title} ({sum(1 for st in s.stations if not st.ok)} station(s))" for s in failing
+    )
+    return f"[bold red]FAIL[/]: limits exceeded in {worst}."
+
+
+def make_console() -> Console:
+    """A console: the terminal's width, or 120 columns (``COLUMNS`` overrides) when piped."""
+    import os
+    import sys
+
+    if sys.stdout.isatty():
+        return Console()
+    try:
+        width = int(os.environ.get("COLUMNS", "120"))
+    except ValueError:
+        width = 120
+    return Console(width=max(60, width))
+
+
+def render(result: CheckResult, console: Console, system: str | None = None) -> None:
+    """Print the whole check."""
+    system = system or result.girder.job.units
+    console.print(header(result, system))
+    console.print(properties(result, system))
+    console.print(losses(result, system))
+    for i, stage in enumerate(result.stages, 1):
+        console.print(stage_table(stage, i, system))
+    console.print(summary(result))
+    for n in result.notes:
+        console.print(f"[dim]Note: {n}[/]")
+    console.print(verdict(result))
+    console.print(f"[yellow]{CAUTION}[/]")

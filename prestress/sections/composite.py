@@ -1,0 +1,122 @@
+"""Composite and transformed sections, assembled by the parallel-axis theorem.
+
+The girder's gross properties come from sectionproperties (:mod:`.properties`); the deck
+and haunch are rectangles and strands are points, so the assembled properties follow
+exactly from the parallel-axis theorem on the components, each weighted by its modular
+ratio (the usual hand method; a test checks it against sectionproperties' modulus-weighted
+analysis of the same composite shape). All lengths in mm; y measured up from the girder
+bottom; properties expressed in units of the girder concrete (transformed areas).
+"""
+
+from __future__ import annotations
+
+from collections.abc import Iterable
+from dataclasses import dataclass
+
+from prestress.model import Deck
+from prestress.sections.properties import GrossProperties
+
+
+@dataclass(frozen=True)
+class Component:
+    """A piece of a section: area, centroid height, own inertia, weighting (modular ratio)."""
+
+    name: str
+    area: float
+    y: float
+    I_own: float
+    n: float = 1.0
+
+
+@dataclass(frozen=True)
+class AssembledSection:
+    """Transformed properties of an assembly of components (girder-concrete units).
+
+    Attributes:
+        name: e.g. "composite, gross girder".
+        area: transformed area.
+        yb: centroid height above the girder bottom.
+        I: transformed second moment of area about the centroid.
+        fibers: heights (mm above the girder bottom) of the fibers of interest, by name.
+        n_fiber: the modular ratio of the material at each fiber (to turn transformed stress
+            into real stress at that fiber: real = n × M y / I).
+    """
+
+    name: str
+    area: float
+    yb: float
+    I: float
+    fibers: dict[str, float]
+    n_fiber: dict[str, float]
+
+    def S(self, fiber: str) -> float:
+        """Section modulus at a fiber, I / |y_fiber − yb| (mm^3, always positive)."""
+        return self.I / abs(self.fibers[fiber] - self.yb)
+
+    def c(self, fiber: str) -> float:
+        """Signed distance of a fiber above the centroid (mm): positive above."""
+        return self.fibers[fiber] - self.yb
+
+
+def assemble(components: Iterable[Component]) -> tuple[float, float, float]:
+    """Parallel-axis theorem: (area, centroid y, I about the centroid) of weighted components."""
+    comps = list(components)
+    area = sum(c.n * c.area for c in comps)
+    if area <= 0:
+        raise ValueError("the assembled section has no area")
+    y = sum(c.n * c.area * c.y for c in comps) / area
+    inertia = sum(c.n * (c.I_own + c.area * (c.y - y) ** 2) for c in comps)
+    return area, y, inertia
+
+
+def rectangle(name: str, width: float, depth: float, y_bottom: float, n: float = 1.0) -> Component:
+    """A rectangular component (mm) of the given weighting."""
+    return Component(name, width * depth, y_bottom + depth / 2.0, width * depth**3 / 12.0, n)
+
+
+def girder_component(g: GrossProperties) -> Component:
+    """The bare girder as a component."""
+    return Component("girder", g.area, g.yb, g.Ix, 1.0)
+
+
+def noncomposite(g: GrossProperties, name: str = "girder, gross") -> AssembledSection:
+    """The girder alone (gross), with its bottom and top fibers."""
+    return AssembledSection(
+        name=name,
+        area=g.area,
+        yb=g.yb,
+        I=g.Ix,
+        fibers={"girder_bottom": 0.0, "girder_top": g.height},
+        n_fiber={"girder_bottom": 1.0, "girder_top": 1.0},
+    )
+
+
+def deck_components(g: GrossProperties, deck: Deck, n_deck: float) -> list[Component]:
+    """Deck slab (structural thickness) and, when it counts, the haunch, as components."""
+    comps = []
+    if deck.haunch > 0 and deck.haunch_in_stiffness:
+        comps.append(rectangle("haunch", deck.haunch_width, deck.haunch, g.height, n_deck))
+    comps.append(
+        rectangle("deck", deck.effective_width, deck.thickness, g.height + deck.haunch, n_deck)
+    )
+    return comps
+
+
+def composite(g: GrossProperties, deck: Deck, n_deck: float) -> AssembledSection:
+    """Girder plus deck (and haunch if it counts), deck transformed by n = Ec,deck / Ec,girder.
+
+    Args:
+        g: gross girder properties.
+        deck: the deck (thickness is the structural one; wearing surface excluded).
+        n_deck: modular ratio of the deck concrete to the girder concrete.
+    """
+    area, yb, inertia = assemble([girder_component(g), *deck_components(g, deck, n_deck)])
+    top = g.height + deck.haunch + deck.thickness
+    return AssembledSection(
+        name="composite (deck transformed)",
+        area=area,
+        yb=yb,
+        I=inertia,
+        fibers={"girder_bottom": 0.0, "girder_top": g.height, "deck_top": top},
+        n_fiber={"girder_bottom": 1.0, "girder_top": 1.0, "deck_top": n_deck},
+    )

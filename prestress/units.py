@@ -1,0 +1,227 @@
+"""Units: one cached pint registry, parsing of job-file quantities, output unit systems.
+
+Internal base system of the engine (declared once, used everywhere inside):
+    length mm, force N, stress MPa (= N/mm^2), moment N*mm, line load N/mm,
+    unit weight N/mm^3, time day.
+
+Every dimensional value read from a file is a string with its unit ("54 in",
+"41.4 MPa"); it is converted to the internal system once, by :func:`to_internal`.
+Results are converted back once, by :func:`from_internal`, into the output
+system chosen by the job ("US" or "SI").
+"""
+
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass
+from functools import lru_cache
+from typing import TYPE_CHECKING, Any
+
+from prestress.errors import InputError
+
+if TYPE_CHECKING:
+    import pint
+
+#: Standard gravity, used to turn a mass density into a unit weight (CGPM 1901, exact).
+G_STANDARD_M_S2 = 9.80665
+
+
+@dataclass(frozen=True)
+class Kind:
+    """A physical kind of quantity: its pint dimensionality and internal unit."""
+
+    name: str
+    internal: str
+    example: str
+    words: str
+
+
+KINDS: dict[str, Kind] = {
+    k.name: k
+    for k in (
+        Kind("length", "mm", '"54 in" or "1.372 m"', "a length"),
+        Kind("area", "mm**2", '"0.153 in^2" or "98.7 mm^2"', "an area"),
+        Kind("inertia", "mm**4", '"260730 in^4"', "a second moment of area"),
+        Kind("stress", "MPa", '"6.0 ksi" or "41.4 MPa"', "a stress"),
+        Kind("force", "N", '"30 kip" or "133 kN"', "a force"),
+        Kind("moment", "N*mm", '"1200 kip*ft" or "1627 kN*m"', "a moment"),
+        Kind("line_load", "N/mm", '"1.2 kip/ft" or "17.5 kN/m"', "a load per length"),
+        Kind("unit_weight", "N/mm**3", '"150 pcf" or "23.6 kN/m^3"', "a unit weight"),
+        Kind("time", "day", '"1 day" or "75 year"', "a time"),
+        Kind("dimensionless", "", '"70 percent"', "a dimensionless number"),
+    )
+}
+
+
+def _cache_dir() -> str:
+    import platformdirs
+
+    return platformdirs.user_cache_dir("prestress", appauthor=False)
+
+
+@lru_cache(maxsize=1)
+def registry() -> pint.UnitRegistry:
+    """Return the package's single pint registry (built once, cached on disk by pint)."""
+    import pint
+
+    try:
+        ureg = pint.UnitRegistry(cache_folder=f"{_cache_dir()}/pint")
+    except OSError:  # read-only home: build without the disk cache
+        ureg = pint.UnitRegistry()
+    ureg.define("pcf = lbf / foot ** 3")
+    ureg.define("kcf = kip / foot ** 3")
+    ureg.define("klf = kip / foot")
+    ureg.define("plf = lbf / foot")
+    ureg.define("ksf = kip / foot ** 2")
+    ureg.define("psf = lbf / foot ** 2")
+    return ureg
+
+
+def _describe(value: Any) -> str:
+    if isinstance(value, str):
+        return f'"{value}"'
+    if isinstance(value, bool):
+        return f"boolean {str(value).lower()}"
+    if isinstance(value, int | float):
+        return f"a bare number {value}"
+    if isinstance(value, dict):
+        return "a table"
+    if isinstance(value, list):
+        return "a list"
+    return type(value).__name__
+
+
+def parse_quantity(value: Any, kind: str, *, field: str = "", file: str = "") -> pint.Quantity:
+    """Parse a job-file value into a pint quantity of the given kind.
+
+    Args:
+        value: the raw TOML value; must be a string with a unit for dimensional kinds.
+        kind: a key of :data:`KINDS`.
+        field: dotted TOML path, for error messages.
+        file: file path, for error messages.
+
+    Raises:
+        InputError: bare number, malformed text, wrong dimension, NaN or infinity.
+    """
+    k = KINDS[kind]
+    expected = f"{k.words} with its unit, e.g. {k.example}"
+    ureg = registry()
+    if isinstance(value, bool) or not isinstance(value, str | int | float):
+        raise InputError(expected, file=file, field=field, got=_describe(value))
+    if isinstance(value, int | float):
+        if kind != "dimensionless":
+            raise InputError(expected, file=file, field=field, got=_describe(value))
+        q = ureg.Quantity(float(value), "")
+    else:
+        text = value.strip()
+        if not text:
+            raise InputError(expected, file=file, field=field, got="an empty string")
+        try:
+            q = ureg.Quantity(text)
+        except Exception:  # pint raises many types for malformed text
+            raise InputError(expected, file=file, field=field, got=_describe(value)) from None
+        if not isinstance(q, ureg.Quantity):  # plain number inside a string
+            q = ureg.Quantity(float(q), "")
+        if kind != "dimensionless" and q.dimensionless:
+            raise InputError(expected, file=file, field=field, got=f"{_describe(value)} (no unit)")
+    if kind == "unit_weight" and q.check("[mass] / [length] ** 3"):
+        q = q * ureg.Quantity(G_STANDARD_M_S2, "m/s**2")
+    target = ureg.Unit(k.internal) if k.internal else ureg.dimensionless
+    if q.dimensionality != target.dimensionality:
+        got = f"{_describe(value)} (wrong dimension)"
+        raise InputError(expected, file=file, field=field, got=got)
+    magnitude = float(q.to(target).magnitude)
+    if not math.isfinite(magnitude):
+        raise InputError(f"a finite {k.words}", file=file, field=field, got=_describe(value))
+    return q
+
+
+def to_internal(value: Any, kind: str, *, field: str = "", file: str = "") -> float:
+    """Parse a job-file value and return its magnitude in the internal base system."""
+    q = parse_quantity(value, kind, field=field, file=file)
+    return float(q.to(KINDS[kind].internal or "dimensionless").magnitude)
+
+
+# --------------------------------------------------------------------------------------------
+# Output unit systems. Conversion factors from the internal system are exact constants, so the
+# presenters never need pint (fast start-up); tests check them against pint.
+
+INCH_MM = 25.4
+FOOT_MM = 304.8
+LBF_N = 4.4482216152605
+KIP_N = 1000.0 * LBF_N
+KSI_MPA = KIP_N / INCH_MM**2
+
+
+@dataclass(frozen=True)
+class OutUnit:
+    """An output unit: its label and the factor from the internal unit (out = internal / factor)."""
+
+    label: str
+    factor: float
+
+
+#: Output systems: for each display role, the unit label and its size in internal units.
+SYSTEMS: dict[str, dict[str, OutUnit]] = {
+    "US": {
+        "dimension": OutUnit("in", INCH_MM),
+        "position": OutUnit("ft", FOOT_MM),
+        "area": OutUnit("in²", INCH_MM**2),
+        "inertia": OutUnit("in⁴", INCH_MM**4),
+        "modulus": OutUnit("in³", INCH_MM**3),
+        "stress": OutUnit("ksi", KSI_MPA),
+        "modulus_e": OutUnit("ksi", KSI_MPA),
+        "force": OutUnit("kip", KIP_N),
+        "moment": OutUnit("kip·ft", KIP_N * FOOT_MM),
+        "line_load": OutUnit("kip/ft", KIP_N / FOOT_MM),
+        "unit_weight": OutUnit("kcf", KIP_N / FOOT_MM**3),
+        "time": OutUnit("day", 1.0),
+        "percent": OutUnit("%", 0.01),
+        "ratio": OutUnit("", 1.0),
+    },
+    "SI": {
+        "dimension": OutUnit("mm", 1.0),
+        "position": OutUnit("m", 1000.0),
+        "area": OutUnit("mm²", 1.0),
+        "inertia": OutUnit("mm⁴", 1.0),
+        "modulus": OutUnit("mm³", 1.0),
+        "stress": OutUnit("MPa", 1.0),
+        "modulus_e": OutUnit("MPa", 1.0),
+        "force": OutUnit("kN", 1000.0),
+        "moment": OutUnit("kN·m", 1.0e6),
+        "line_load": OutUnit("kN/m", 1.0),
+        "unit_weight": OutUnit("kN/m³", 1.0e-6),
+        "time": OutUnit("day", 1.0),
+        "percent": OutUnit("%", 0.01),
+        "ratio": OutUnit("", 1.0),
+    },
+}
+
+#: Plain-ASCII unit text for machine-readable output (pint-parsable).
+ASCII = {
+    "in²": "in**2",
+    "in⁴": "in**4",
+    "in³": "in**3",
+    "mm²": "mm**2",
+    "mm⁴": "mm**4",
+    "mm³": "mm**3",
+    "kip·ft": "kip*ft",
+    "kN·m": "kN*m",
+    "kN/m³": "kN/m**3",
+    "%": "percent",
+}
+
+
+def out_unit(system: str, role: str) -> OutUnit:
+    """Return the output unit of a display role in a system ("US" or "SI")."""
+    return SYSTEMS[system][role]
+
+
+def from_internal(value: float, system: str, role: str) -> float:
+    """Convert an internal-system magnitude into the output unit of ``role``."""
+    return value / SYSTEMS[system][role].factor
+
+
+def ascii_label(label: str) -> str:
+    """Return a plain-ASCII, pint-parsable rendering of a unit label."""
+    return ASCII.get(label, label)
