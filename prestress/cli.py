@@ -63,6 +63,10 @@ def build_parser() -> argparse.ArgumentParser:
     p.add_argument("--json", action="store_true", help="JSON on standard output")
     _add_common(p)
 
+    p = sub.add_parser("examples", help="list the shipped example jobs, or copy them to a folder")
+    p.add_argument("--copy", metavar="DIR", help="copy the examples into DIR (never overwrites)")
+    p.add_argument("--debug", action="store_true", help="show a traceback on errors")
+
     p = sub.add_parser("cache", help="manage the cache of computed section properties")
     p.add_argument("action", choices=("clear", "where"))
     p.add_argument("--debug", action="store_true", help="show a traceback on errors")
@@ -163,7 +167,41 @@ def cmd_cache(args: argparse.Namespace) -> int:
     return EXIT_OK
 
 
-COMMANDS = {"check": cmd_check, "sections": cmd_sections, "cache": cmd_cache}
+def cmd_examples(args: argparse.Namespace) -> int:
+    """``prestress examples [--copy DIR]``."""
+    import shutil
+
+    from prestress.paths import shipped_examples_dir
+
+    src = shipped_examples_dir()
+    files = sorted(p for p in src.rglob("*.toml") if p.is_file())
+    if not args.copy:
+        print(f"shipped examples in {src}:")
+        for p in files:
+            print(f"  {p.relative_to(src)}")
+        return EXIT_OK
+    dest = Path(args.copy)
+    clashes = [p for p in files if (dest / p.relative_to(src)).exists()]
+    if clashes:
+        raise InputError(
+            "a folder without files of the same names (nothing was copied)",
+            file=str(dest / clashes[0].relative_to(src)),
+            got="an existing file",
+        )
+    for p in files:
+        target = dest / p.relative_to(src)
+        target.parent.mkdir(parents=True, exist_ok=True)
+        shutil.copyfile(p, target)
+    print(f"copied {len(files)} example files to {dest}")
+    return EXIT_OK
+
+
+COMMANDS = {
+    "check": cmd_check,
+    "sections": cmd_sections,
+    "examples": cmd_examples,
+    "cache": cmd_cache,
+}
 
 
 def main(argv: Sequence[str] | None = None) -> int:

@@ -76,6 +76,16 @@ class Table:
         self._used.add(key)
         if key not in self.data:
             if default is ...:
+                near = difflib.get_close_matches(
+                    key, [k for k in self.data if k != key], n=1, cutoff=0.6
+                )
+                if near:
+                    raise InputError(
+                        f"the key '{key}' (did you mean '{key}'?)",
+                        file=self.file,
+                        field=self.field(near[0]),
+                        got="an unknown key",
+                    )
                 raise self.error(key, expected, "nothing (the field is missing)")
             return default
         return self.data[key]
@@ -116,7 +126,10 @@ class Table:
         if default is not ... and key not in self.data:
             self._used.add(key)
             return default
-        value = self.raw(key, expected=f"a value of kind {kind}")
+        from prestress.units import KINDS
+
+        k = KINDS[kind]
+        value = self.raw(key, expected=f"{k.words} with its unit, e.g. {k.example}")
         q = to_internal(value, kind, field=self.field(key), file=self.file)
         if positive and not q > 0:
             raise self.error(key, "a positive value", f'"{value}"')

@@ -115,7 +115,14 @@ def search_folders(
             p = base / p
         folders.append(p)
     folders.append(shipped_sections_dir())
-    return folders
+    unique: list[Path] = []
+    seen: set[Path] = set()
+    for f in folders:
+        key = f.resolve()
+        if key not in seen:
+            seen.add(key)
+            unique.append(f)
+    return unique
 
 
 def _files_in(folder: Path) -> list[Path]:
