@@ -59,9 +59,61 @@ def build_parser() -> argparse.ArgumentParser:
     _add_common(p)
 
     p = sub.add_parser("sections", help="list the section library")
-    p.add_argument("--family", help="only this family")
+    p.add_argument("--family", help="only this family (e.g. i_girder, box_beam)")
+    p.add_argument(
+        "--min-depth", metavar="LENGTH", help='only sections at least this deep, e.g. "48 in"'
+    )
+    p.add_argument("--max-depth", metavar="LENGTH", help="only sections at most this deep")
+    p.add_argument(
+        "--unit-weight",
+        default="150 pcf",
+        metavar="WEIGHT",
+        help='unit weight for the weight column (default "150 pcf")',
+    )
     p.add_argument("--json", action="store_true", help="JSON on standard output")
     _add_common(p)
+
+    p = sub.add_parser("section", help="properties or drawing of one section")
+    ssub = p.add_subparsers(
+        dest="section_command", metavar="ACTION", parser_class=_Parser, required=True
+    )
+    q = ssub.add_parser("show", help="property table of a section, optionally with a deck")
+    q.add_argument("name", help="the section's name (see 'prestress sections')")
+    q.add_argument("--deck-thickness", metavar="LENGTH", help="structural deck thickness")
+    q.add_argument("--deck-width", metavar="LENGTH", help="effective deck width")
+    q.add_argument("--haunch", metavar="LENGTH", default="0 in", help="haunch thickness")
+    q.add_argument(
+        "--haunch-in-stiffness",
+        action="store_true",
+        help="count the haunch in the composite stiffness",
+    )
+    q.add_argument("--fc-girder", metavar="STRESS", help="girder f'c, for the modular ratio")
+    q.add_argument("--fc-deck", metavar="STRESS", help="deck f'c, for the modular ratio")
+    q.add_argument(
+        "--modular-ratio",
+        type=float,
+        metavar="N",
+        help="deck-to-girder modular ratio, instead of the two strengths",
+    )
+    q.add_argument(
+        "--unit-weight",
+        default="150 pcf",
+        metavar="WEIGHT",
+        help='unit weight for the weight per length (default "150 pcf")',
+    )
+    q.add_argument(
+        "--torsion",
+        action="store_true",
+        help="also compute the torsion constant J (warping analysis, slower)",
+    )
+    q.add_argument("--json", action="store_true", help="JSON on standard output")
+    _add_common(q)
+    q = ssub.add_parser("draw", help="draw a section to scale (SVG or PNG)")
+    q.add_argument("name", nargs="?", help="the section's name (or give --job)")
+    q.add_argument("--out", required=True, metavar="FILE", help="FILE.svg or FILE.png")
+    q.add_argument("--job", metavar="JOB", help="draw the job's girder with its strands and deck")
+    q.add_argument("--force", action="store_true", help="replace an existing output file")
+    _add_common(q)
 
     p = sub.add_parser("examples", help="list the shipped example jobs, or copy them to a folder")
     p.add_argument("--copy", metavar="DIR", help="copy the examples into DIR (never overwrites)")
@@ -73,10 +125,8 @@ def build_parser() -> argparse.ArgumentParser:
     return parser
 
 
-def _write_output(path: str, text: str, *, inputs: Sequence[Path], force: bool) -> None:
-    from prestress.atomic import write_atomic
-
-    target = Path(path)
+def _check_output(target: Path, *, inputs: Sequence[Path], force: bool) -> None:
+    """Refuse an output that is an input, or that exists without --force."""
     for src in inputs:
         if target.resolve() == src.resolve():
             raise InputError(
@@ -90,6 +140,14 @@ def _write_output(path: str, text: str, *, inputs: Sequence[Path], force: bool) 
             file=str(target),
             got="an existing file",
         )
+
+
+def _write_output(path: str, text: str, *, inputs: Sequence[Path], force: bool) -> None:
+    """Write an output file atomically after :func:`_check_output`."""
+    from prestress.atomic import write_atomic
+
+    target = Path(path)
+    _check_output(target, inputs=inputs, force=force)
     write_atomic(target, text)
 
 
@@ -115,42 +173,145 @@ def cmd_check(args: argparse.Namespace) -> int:
     return EXIT_OK if result.ok else EXIT_FAIL
 
 
+def _cli_quantity(value: str | None, kind: str, option: str) -> float | None:
+    from prestress.units import to_internal
+
+    if value is None:
+        return None
+    return to_internal(value, kind, field=option, file="command line")
+
+
 def cmd_sections(args: argparse.Namespace) -> int:
     """``prestress sections``: list the library."""
     import json
 
-    from rich.table import Table
-
-    from prestress.sections.library import load_library, search_folders
-
-    lib = load_library(search_folders((), tuple(args.library)))
-    entries = sorted(lib.entries.values(), key=lambda e: (e.family, e.name))
-    if args.family:
-        entries = [e for e in entries if e.family == args.family]
-    if args.json:
-        data = [
-            {
-                "name": e.name,
-                "family": e.family,
-                "source": e.source,
-                "file": e.file,
-                "description": e.description,
-            }
-            for e in entries
-        ]
-        sys.stdout.write(json.dumps({"sections": data}, indent=2) + "\n")
-        return EXIT_OK
-    t = Table(title="Section library", title_justify="left", title_style="bold")
-    for col in ("Name", "Family", "Source", "File"):
-        t.add_column(col)
-    for e in entries:
-        t.add_row(e.name, e.family, e.source, Path(e.file).name)
     from prestress.present.console import make_console
+    from prestress.present.sections_view import listing_json, listing_table
+    from prestress.sections.api import list_sections, open_library
 
+    lib = open_library(tuple(args.library))
+    w = _cli_quantity(args.unit_weight, "unit_weight", "--unit-weight")
+    assert w is not None
+    rows = list_sections(
+        lib,
+        family=args.family,
+        min_depth=_cli_quantity(args.min_depth, "length", "--min-depth"),
+        max_depth=_cli_quantity(args.max_depth, "length", "--max-depth"),
+    )
+    system = args.units or "US"
+    if args.json:
+        sys.stdout.write(json.dumps(listing_json(rows, w, system), indent=2) + "\n")
+        return EXIT_OK
     console = make_console()
-    console.print(t)
+    console.print(listing_table(rows, w, system))
     for n in lib.notices:
         console.print(f"[dim]Note: {n}[/]")
+    return EXIT_OK
+
+
+def cmd_section(args: argparse.Namespace) -> int:
+    """``prestress section show|draw``."""
+    if args.section_command == "draw":
+        return _section_draw(args)
+    import json
+
+    from prestress.materials import concrete_modulus
+    from prestress.model import Concrete
+    from prestress.present.console import make_console
+    from prestress.present.sections_view import properties_json, properties_table
+    from prestress.sections.api import open_library, section_properties, simple_deck
+
+    w = _cli_quantity(args.unit_weight, "unit_weight", "--unit-weight")
+    assert w is not None
+    deck = n = None
+    t = _cli_quantity(args.deck_thickness, "length", "--deck-thickness")
+    b = _cli_quantity(args.deck_width, "length", "--deck-width")
+    if (t is None) != (b is None):
+        raise InputError(
+            "both --deck-thickness and --deck-width, or neither",
+            file="command line",
+            field="--deck-width" if b is None else "--deck-thickness",
+        )
+    if t is not None and b is not None:
+        if args.modular_ratio is not None:
+            n = args.modular_ratio
+            if not 0.1 <= n <= 2.0:
+                raise InputError(
+                    "a modular ratio from 0.1 to 2.0",
+                    file="command line",
+                    field="--modular-ratio",
+                    got=str(n),
+                )
+        else:
+            fcg = _cli_quantity(args.fc_girder, "stress", "--fc-girder")
+            fcd = _cli_quantity(args.fc_deck, "stress", "--fc-deck")
+            if fcg is None or fcd is None:
+                raise InputError(
+                    "--fc-girder and --fc-deck (or --modular-ratio) with a deck",
+                    file="command line",
+                    field="--fc-girder",
+                )
+            w_mod = 0.145 * 4448.2216152605 / 304.8**3  # 145 pcf for the modulus formula
+            n = concrete_modulus(fcd, w_mod, "aashto") / concrete_modulus(fcg, w_mod, "aashto")
+        conc = Concrete("deck", 1.0, None, w, 1.0, None, "modular ratio")
+        haunch = _cli_quantity(args.haunch, "length", "--haunch") or 0.0
+        deck = simple_deck(t, b, haunch, conc, args.haunch_in_stiffness)
+    lib = open_library(tuple(args.library))
+    rep = section_properties(
+        lib, args.name, unit_weight=w, deck=deck, n_deck=n, torsion=args.torsion
+    )
+    system = args.units or "US"
+    if args.json:
+        data = {"units": system, "sections": [properties_json(rep, system)]}
+        sys.stdout.write(json.dumps(data, indent=2, allow_nan=False) + "\n")
+        return EXIT_OK
+    console = make_console()
+    console.print(properties_table(rep, system))
+    console.print(f"[dim]Source: {rep.entry.source or 'not given'} ({rep.entry.file})[/]")
+    return EXIT_OK
+
+
+def _section_draw(args: argparse.Namespace) -> int:
+    from prestress.sections.draw import draw_section
+
+    out = Path(args.out)
+    if out.suffix.lower() not in (".svg", ".png"):
+        raise InputError("an output file ending in .svg or .png", file=str(out), field="--out")
+    inputs = [Path(args.job)] if args.job else []
+    _check_output(out, inputs=inputs, force=args.force)
+    system = args.units or "US"
+    if args.job:
+        from prestress.analysis import resolve_girder
+        from prestress.jobfile import load_job
+
+        job = load_job(args.job)
+        girder = resolve_girder(job, cli_libraries=tuple(args.library))
+        job = girder.job
+        strands = [(float(x), r.height) for r in job.rows for x in r.x_positions()]
+        deck = None
+        if job.deck is not None:
+            deck = (job.deck.effective_width, job.deck.thickness, job.deck.haunch)
+        draw_section(
+            girder.polygon,
+            out_path=out,
+            title=f"{girder.section_name} — {job.title}",
+            centroid_y_mm=girder.gross.yb,
+            strands_mm=strands,
+            deck=deck,
+            units=args.units or job.units,
+        )
+    else:
+        if not args.name:
+            raise InputError("a section name or --job", file="command line", field="NAME")
+        from prestress.sections.api import open_library, polygon_of
+        from prestress.sections.properties import gross_properties
+
+        lib = open_library(tuple(args.library))
+        entry = lib.get(args.name, file="command line", field="NAME")
+        poly = polygon_of(entry)
+        g = gross_properties(poly)
+        draw_section(poly, out_path=out, title=entry.name, centroid_y_mm=g.yb, units=system)
+    print(f"wrote {out}")
     return EXIT_OK
 
 
@@ -199,6 +360,7 @@ def cmd_examples(args: argparse.Namespace) -> int:
 COMMANDS = {
     "check": cmd_check,
     "sections": cmd_sections,
+    "section": cmd_section,
     "examples": cmd_examples,
     "cache": cmd_cache,
 }

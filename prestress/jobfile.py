@@ -9,6 +9,7 @@ from __future__ import annotations
 
 from pathlib import Path
 
+from prestress.codes.aashto_lrfd import effective_width
 from prestress.errors import InputError
 from prestress.materials import MODULUS_FORMULAS, concrete_modulus
 from prestress.model import (
@@ -244,6 +245,43 @@ def _percent(t: Table, key: str) -> float:
     return value
 
 
+def _effective_width(
+    d: Table, spacing: float | None, position: str, span: float
+) -> tuple[float, str, float]:
+    """Effective and tributary deck widths: given, or from the spacing per AASHTO 4.6.2.6.1."""
+    overhang = d.quantity("overhang", "length", None, non_negative=True)
+    if d.has("effective_width"):
+        eff = d.quantity("effective_width", "length", positive=True)
+        source = "given in the job"
+    else:
+        if spacing is None:
+            raise d.error(
+                "effective_width",
+                "an effective width, or girder.spacing to compute it (AASHTO LRFD 4.6.2.6.1)",
+                "neither",
+            )
+        if position == "exterior":
+            if overhang is None:
+                raise d.error("overhang", "the deck overhang of an exterior girder")
+            eff = effective_width.b_eff_exterior(spacing, overhang)
+            source = "AASHTO LRFD 9th Ed. (2020) 4.6.2.6.1, exterior: S/2 + overhang"
+        else:
+            eff = effective_width.b_eff_interior(spacing)
+            source = "AASHTO LRFD 9th Ed. (2020) 4.6.2.6.1, interior: tributary width S"
+        if span / spacing < 2.0:
+            raise d.error(
+                "effective_width",
+                "a given effective width: span / spacing < 2.0, "
+                "where 4.6.2.6.1 calls for a refined analysis",
+                f"{span / spacing:.2f}",
+            )
+    if spacing is not None:
+        trib = spacing if position == "interior" else spacing / 2.0 + (overhang or 0.0)
+    else:
+        trib = eff
+    return eff, source, trib
+
+
 def load_job(path: str | Path) -> Job:
     """Read and validate a job file; raise InputError naming the field on any mistake."""
     path = Path(path)
@@ -274,6 +312,8 @@ def load_job(path: str | Path) -> Job:
         )
     if not 1000.0 <= length <= 100_000.0:
         raise g.error("length", "a girder length from 1 m to 100 m (3.3 to 330 ft)")
+    spacing = g.quantity("spacing", "length", None, positive=True)
+    position = g.string("position", "interior", choices=("interior", "exterior"))
     gc = g.table("concrete")
     assert gc is not None
     girder_concrete = _concrete(gc, "girder", at_transfer=True)
@@ -285,16 +325,17 @@ def load_job(path: str | Path) -> Job:
         dc = d.table("concrete")
         assert dc is not None
         deck_concrete = _concrete(dc, "deck", at_transfer=False)
-        eff = d.quantity("effective_width", "length", positive=True)
+        eff, eff_source, trib = _effective_width(d, spacing, position, span)
         deck = Deck(
             thickness=d.quantity("thickness", "length", positive=True),
             wearing_surface=d.quantity("wearing_surface", "length", 0.0, non_negative=True),
             effective_width=eff,
-            tributary_width=d.quantity("tributary_width", "length", eff, positive=True),
+            tributary_width=d.quantity("tributary_width", "length", trib, positive=True),
             haunch=d.quantity("haunch", "length", 0.0, non_negative=True),
             haunch_width=d.quantity("haunch_width", "length", 0.0, non_negative=True),
             haunch_in_stiffness=d.boolean("haunch_in_stiffness", False),
             concrete=deck_concrete,
+            effective_width_source=eff_source,
         )
         d.done()
 

@@ -74,6 +74,7 @@ class Deck:
         haunch_width: haunch width (usually the girder's top flange width).
         haunch_in_stiffness: whether the haunch counts in the composite section.
         concrete: the deck concrete.
+        effective_width_source: where the effective width comes from.
     """
 
     thickness: float
@@ -84,6 +85,7 @@ class Deck:
     haunch_width: float
     haunch_in_stiffness: bool
     concrete: Concrete
+    effective_width_source: str = "given in the job"
 
 
 @dataclass(frozen=True)

@@ -13,6 +13,7 @@ system chosen by the job ("US" or "SI").
 from __future__ import annotations
 
 import math
+import re
 from dataclasses import dataclass
 from functools import lru_cache
 from typing import TYPE_CHECKING, Any
@@ -136,8 +137,34 @@ def parse_quantity(value: Any, kind: str, *, field: str = "", file: str = "") ->
     return q
 
 
+_NUMBER_UNIT = re.compile(r"^\s*([-+]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][-+]?\d+)?)\s*(\S.*?)\s*$")
+
+
+@lru_cache(maxsize=512)
+def _unit_factor(unit_text: str, kind: str) -> float | None:
+    """Size of ``1 unit_text`` in the internal unit of ``kind``; None if not of that kind."""
+    try:
+        q = parse_quantity("1 " + unit_text, kind)
+    except InputError:
+        return None
+    return float(q.to(KINDS[kind].internal or "dimensionless").magnitude)
+
+
 def to_internal(value: Any, kind: str, *, field: str = "", file: str = "") -> float:
-    """Parse a job-file value and return its magnitude in the internal base system."""
+    """Parse a job-file value and return its magnitude in the internal base system.
+
+    Fast path: "number unit" strings are split by a regular expression and the unit's factor
+    is cached, so pint parses each distinct unit once per process; anything else (and every
+    error) goes through :func:`parse_quantity`.
+    """
+    if isinstance(value, str) and kind != "dimensionless":
+        m = _NUMBER_UNIT.match(value)
+        if m is not None:
+            factor = _unit_factor(m.group(2), kind)
+            if factor is not None:
+                result = float(m.group(1)) * factor
+                if math.isfinite(result):
+                    return result
     q = parse_quantity(value, kind, field=field, file=file)
     return float(q.to(KINDS[kind].internal or "dimensionless").magnitude)
 

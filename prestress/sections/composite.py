@@ -120,3 +120,78 @@ def composite(g: GrossProperties, deck: Deck, n_deck: float) -> AssembledSection
         fibers={"girder_bottom": 0.0, "girder_top": g.height, "deck_top": top},
         n_fiber={"girder_bottom": 1.0, "girder_top": 1.0, "deck_top": n_deck},
     )
+
+
+# ------------------------------------------------------------------------------------------
+# Sections with bonded strands: net and transformed
+
+
+@dataclass(frozen=True)
+class StrandLayer:
+    """Bonded steel at one height: total area (mm^2) and height above the girder bottom (mm)."""
+
+    area: float
+    y: float
+
+
+def strand_components(layers: Iterable[StrandLayer], weight: float) -> list[Component]:
+    """Strand layers as point components with a weighting (n − 1 transformed, −1 net)."""
+    return [Component("strands", s.area, s.y, 0.0, weight) for s in layers]
+
+
+def _with_strands(
+    base: list[Component],
+    fibers: dict[str, float],
+    n_fiber: dict[str, float],
+    layers: list[StrandLayer],
+    weight: float,
+    name: str,
+) -> AssembledSection:
+    area, yb, inertia = assemble([*base, *strand_components(layers, weight)])
+    return AssembledSection(name=name, area=area, yb=yb, I=inertia, fibers=fibers, n_fiber=n_fiber)
+
+
+def net_girder(g: GrossProperties, layers: list[StrandLayer]) -> AssembledSection:
+    """The girder with the strand area removed (holes at the strand positions)."""
+    return _with_strands(
+        [girder_component(g)],
+        {"girder_bottom": 0.0, "girder_top": g.height},
+        {"girder_bottom": 1.0, "girder_top": 1.0},
+        layers,
+        -1.0,
+        "girder, net",
+    )
+
+
+def transformed_girder(
+    g: GrossProperties, layers: list[StrandLayer], n_p: float, name: str = "girder, transformed"
+) -> AssembledSection:
+    """The girder with bonded strands added at (n − 1) times their area, n = Ep / Ec (or Eci).
+
+    Equivalent to sectionproperties' modulus-weighted analysis of the concrete with holes at
+    the strands plus steel of modulus Ep (a test checks it); the parallel-axis form is exact
+    for strands, whose own inertia is negligible.
+    """
+    return _with_strands(
+        [girder_component(g)],
+        {"girder_bottom": 0.0, "girder_top": g.height},
+        {"girder_bottom": 1.0, "girder_top": 1.0},
+        layers,
+        n_p - 1.0,
+        name,
+    )
+
+
+def transformed_composite(
+    g: GrossProperties, deck: Deck, n_deck: float, layers: list[StrandLayer], n_p: float
+) -> AssembledSection:
+    """Composite section (deck transformed by n_deck) with strands at (n_p − 1) times their area."""
+    top = g.height + deck.haunch + deck.thickness
+    return _with_strands(
+        [girder_component(g), *deck_components(g, deck, n_deck)],
+        {"girder_bottom": 0.0, "girder_top": g.height, "deck_top": top},
+        {"girder_bottom": 1.0, "girder_top": 1.0, "deck_top": n_deck},
+        layers,
+        n_p - 1.0,
+        "composite, transformed",
+    )
