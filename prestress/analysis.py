@@ -17,7 +17,14 @@ import numpy as np
 from prestress.errors import InputError
 from prestress.losses import LossBreakdown, compute_losses
 from prestress.model import FIBERS, FiberLimit, Job
-from prestress.sections.composite import AssembledSection, composite, noncomposite
+from prestress.sections.composite import (
+    AssembledSection,
+    StrandLayer,
+    composite,
+    noncomposite,
+    transformed_composite,
+    transformed_girder,
+)
 from prestress.sections.properties import GrossProperties, gross_properties
 
 SIGN_CONVENTION = "tension +, compression −"
@@ -52,11 +59,19 @@ class Girder:
     self_weight: float
     deck_weight: float
     notices: tuple[str, ...] = ()
+    basis: str = "gross"
+    section_transfer: AssembledSection | None = None
+    section_service: AssembledSection | None = None
+    section_composite: AssembledSection | None = None
 
     @property
     def eccentricity_gross(self) -> float:
         """Eccentricity of the strand centroid below the gross centroid (mm)."""
         return self.gross.yb - self.job.y_ps
+
+    def eccentricity(self, sec: AssembledSection) -> float:
+        """Eccentricity of the strand centroid below a section's centroid (mm)."""
+        return sec.yb - self.job.y_ps
 
 
 def resolve_girder(job: Job, *, cli_libraries: tuple[str, ...] = ()) -> Girder:
@@ -96,6 +111,19 @@ def resolve_girder(job: Job, *, cli_libraries: tuple[str, ...] = ()) -> Girder:
         w = deck.concrete.unit_weight
         deck_weight += w * (deck.thickness + deck.wearing_surface) * deck.tributary_width
         deck_weight += w * deck.haunch * deck.haunch_width
+    sec_t, sec_s, sec_c = girder_section, girder_section, comp
+    if job.loss_basis == "transformed":
+        gc = job.girder_concrete
+        assert gc.Eci is not None
+        layers = [StrandLayer(r.count * job.strand.area, r.height) for r in job.rows]
+        sec_t = transformed_girder(
+            gross, layers, job.strand.Ep / gc.Eci, "girder, transformed at transfer (Eci)"
+        )
+        sec_s = transformed_girder(
+            gross, layers, job.strand.Ep / gc.Ec, "girder, transformed in service (Ec)"
+        )
+        if job.deck is not None:
+            sec_c = transformed_composite(gross, job.deck, n_deck, layers, job.strand.Ep / gc.Ec)
     return Girder(
         job=job,
         section_name=name,
@@ -108,6 +136,10 @@ def resolve_girder(job: Job, *, cli_libraries: tuple[str, ...] = ()) -> Girder:
         self_weight=gross.area * job.girder_concrete.unit_weight,
         deck_weight=deck_weight,
         notices=tuple(notices),
+        basis=job.loss_basis,
+        section_transfer=sec_t,
+        section_service=sec_s,
+        section_composite=sec_c,
     )
 
 
@@ -311,8 +343,9 @@ def _span_moment(w: float, span: float, x: float) -> float:
 def stage_transfer(girder: Girder, losses: LossBreakdown) -> StageResult:
     """Release in the casting bed: initial prestress and self-weight on the girder length."""
     job = girder.job
-    sec = girder.girder_section
-    e = girder.eccentricity_gross
+    sec = girder.section_transfer
+    assert sec is not None
+    e = girder.eccentricity(sec)
     lt = job.transfer_length
     L = job.length
     stations = [
@@ -324,7 +357,7 @@ def stage_transfer(girder: Girder, losses: LossBreakdown) -> StageResult:
     assert fci is not None
     results = []
     for name, x in sorted(stations, key=lambda s: s[1]):
-        P = job.A_ps * losses.f_pt * force_factor(job, x)
+        P = job.A_ps * losses.applied_transfer * force_factor(job, x)
         M = _span_moment(girder.self_weight, L, x)
         fibers = {}
         for fiber in ("girder_bottom", "girder_top"):
@@ -334,8 +367,8 @@ def stage_transfer(girder: Girder, losses: LossBreakdown) -> StageResult:
     return StageResult(
         key="transfer",
         title="Release in the casting bed",
-        description="initial prestress (after elastic shortening) and girder self-weight on the "
-        "girder length, supported at its ends; gross girder section",
+        description="initial prestress and girder self-weight on the girder length, supported "
+        f"at its ends; section: {sec.name}",
         strength_text=f"f'ci = {fci:.6g} MPa",
         stations=tuple(results),
     )
@@ -358,16 +391,17 @@ def stage_service(girder: Girder, losses: LossBreakdown, key: str) -> StageResul
     """Final service at the tenth points of the design span for one service combination."""
     job = girder.job
     combo = job.combinations[key]
-    nc = girder.girder_section
-    comp = girder.composite_section
-    e = girder.eccentricity_gross
+    nc = girder.section_service
+    assert nc is not None
+    comp = girder.section_composite
+    e = girder.eccentricity(nc)
     span = job.span
     fc = job.girder_concrete.fc
     results = []
     for i in range(11):
         xb = span * i / 10.0
         x = job.bearing_offset + xb
-        P = job.A_ps * losses.f_pe * force_factor(job, x)
+        P = job.A_ps * losses.applied_final * force_factor(job, x)
         M_nc = {
             "girder": combo.dead * _span_moment(girder.self_weight, span, xb),
             "deck": combo.dead * _span_moment(girder.deck_weight, span, xb),
@@ -408,8 +442,8 @@ def stage_service(girder: Girder, losses: LossBreakdown, key: str) -> StageResul
         key=key,
         title=title,
         description=f"{desc}; load factors: dead {combo.dead:g}, live {combo.live:g}; "
-        "girder and deck weights on the girder section, superimposed dead and live load on "
-        "the composite section",
+        f"prestress, girder and deck weights on the {nc.name} section"
+        + (f", superimposed dead and live load on the {comp.name} section" if comp else ""),
         strength_text=f"f'c = {fc:.6g} MPa",
         stations=tuple(results),
         notes=tuple(notes),
@@ -433,3 +467,27 @@ def check_file(path: str | Path, *, cli_libraries: tuple[str, ...] = ()) -> Chec
     from prestress.jobfile import load_job
 
     return run_check(load_job(path), cli_libraries=cli_libraries)
+
+
+def losses_file(
+    path: str | Path, *, method: str | None = None, cli_libraries: tuple[str, ...] = ()
+) -> tuple[Girder, LossBreakdown]:
+    """Load a job file and compute its losses by the job's (or the given) method."""
+    from prestress.jobfile import load_job
+
+    girder = resolve_girder(load_job(path), cli_libraries=cli_libraries)
+    return girder, compute_losses(girder, method)
+
+
+def compare_losses(girder: Girder) -> tuple[list[LossBreakdown], list[str]]:
+    """Every registered loss method that applies to the girder, and why the others do not."""
+    from prestress.losses import METHODS, load_methods
+
+    load_methods()
+    results, skipped = [], []
+    for name in METHODS:
+        try:
+            results.append(compute_losses(girder, name))
+        except InputError as exc:
+            skipped.append(f"{name}: {exc.expected}")
+    return results, skipped

@@ -58,6 +58,13 @@ def build_parser() -> argparse.ArgumentParser:
     p.add_argument("--force", action="store_true", help="replace an existing output file")
     _add_common(p)
 
+    p = sub.add_parser("losses", help="prestress losses per stage, by one method or all")
+    p.add_argument("job", help="the job file (TOML)")
+    p.add_argument("--method", help="a loss method (default: the job's losses.method)")
+    p.add_argument("--compare", action="store_true", help="every applicable method side by side")
+    p.add_argument("--json", action="store_true", help="JSON on standard output")
+    _add_common(p)
+
     p = sub.add_parser("sections", help="list the section library")
     p.add_argument("--family", help="only this family (e.g. i_girder, box_beam)")
     p.add_argument(
@@ -171,6 +178,56 @@ def cmd_check(args: argparse.Namespace) -> int:
 
         render(result, make_console(), system)
     return EXIT_OK if result.ok else EXIT_FAIL
+
+
+def cmd_losses(args: argparse.Namespace) -> int:
+    """``prestress losses JOB [--compare] [--method M] [--json]``."""
+    import json
+
+    from prestress.analysis import compare_losses, losses_file
+    from prestress.jobfile import LOSS_METHODS
+    from prestress.present import losses_view as view
+    from prestress.present.common import CAUTION
+    from prestress.present.console import make_console
+
+    if args.method is not None and args.method not in LOSS_METHODS:
+        raise InputError(
+            "a loss method: one of " + ", ".join(LOSS_METHODS),
+            file="command line",
+            field="--method",
+            got=repr(args.method),
+        )
+    girder, chosen = losses_file(args.job, method=args.method, cli_libraries=tuple(args.library))
+    job = girder.job
+    system = args.units or job.units
+    results, skipped = compare_losses(girder) if args.compare else ([chosen], [])
+    if args.json:
+        data = {
+            "units": system,
+            "job": {"file": job.file, "title": job.title},
+            "methods": [view.to_dict(b, job.A_ps, system) for b in results],
+            "not_applicable": skipped,
+            "caution": CAUTION,
+        }
+        sys.stdout.write(json.dumps(data, indent=2, ensure_ascii=False, allow_nan=False) + "\n")
+        return EXIT_OK
+    console = make_console()
+    console.print(
+        f"[bold]prestress losses[/] — {job.title} ({job.file}); "
+        f"{job.strand_count} strands, Aps {job.A_ps / 645.16:.3f} in², "
+        f"fpj {job.strand.jacking_stress / 6.894757293168361:.1f} ksi"
+    )
+    if args.compare:
+        console.print(view.compare_table(results, job.A_ps, system))
+        for s in skipped:
+            console.print(f"[dim]Not applicable: {s}[/]")
+    else:
+        for t in view.stage_tables(chosen, job.A_ps, system):
+            console.print(t)
+        for n in chosen.notes:
+            console.print(f"[dim]Note: {n}[/]")
+    console.print(f"[yellow]{CAUTION}[/]")
+    return EXIT_OK
 
 
 def _cli_quantity(value: str | None, kind: str, option: str) -> float | None:
@@ -359,6 +416,7 @@ def cmd_examples(args: argparse.Namespace) -> int:
 
 COMMANDS = {
     "check": cmd_check,
+    "losses": cmd_losses,
     "sections": cmd_sections,
     "section": cmd_section,
     "examples": cmd_examples,

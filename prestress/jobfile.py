@@ -33,7 +33,7 @@ from prestress.tomlread import Table, read_toml
 from prestress.units import INCH_MM, KSI_MPA, to_internal
 
 #: Loss methods the job may choose (see ``prestress.losses``).
-LOSS_METHODS = ("aashto-approximate",)
+LOSS_METHODS = ("aashto-approximate", "aashto-refined")
 
 #: Jacking stress limits for pretensioning, AASHTO LRFD 9th Ed. (2020) Table 5.9.2.2-1.
 JACKING_LIMIT = {"low": 0.75, "stress-relieved": 0.70}
@@ -391,8 +391,10 @@ def load_job(path: str | Path) -> Job:
 
     ls = top.table("losses", required=False)
     method = "aashto-approximate"
+    basis = "gross"
     if ls is not None:
         method = ls.string("method", method, choices=LOSS_METHODS)
+        basis = ls.string("section", basis, choices=("gross", "transformed"))
         ls.done()
 
     combos = {
@@ -446,4 +448,6 @@ def load_job(path: str | Path) -> Job:
         transfer_length_source=lt_source,
         combinations=combos,
         library_paths=libs,
+        loss_basis=basis,
+        spacing=spacing,
     )

@@ -233,6 +233,8 @@ class Job:
     transfer_length_source: str
     combinations: dict[str, Combination]
     library_paths: tuple[str, ...] = field(default_factory=tuple)
+    loss_basis: str = "gross"  # "gross" or "transformed": sections the stresses are computed on
+    spacing: float | None = None
 
     @property
     def bearing_offset(self) -> float:

@@ -44,6 +44,16 @@ class LossComponent:
 
 
 @dataclass(frozen=True)
+class Milestone:
+    """The strand stress at one moment of the girder's life (MPa; age in days)."""
+
+    key: str  # "jacking", "transfer", "deck_placement", "final"
+    label: str
+    age: float | None
+    stress: float
+
+
+@dataclass(frozen=True)
 class LossBreakdown:
     """The losses of a job by one method (MPa).
 
@@ -52,9 +62,17 @@ class LossBreakdown:
         title: the method in words, with its source.
         jacking_stress: fpj.
         components: the mechanisms, in time order.
-        f_pt: strand stress just after transfer (fpj less the applied losses up to transfer).
-        f_pe: effective strand stress at the final age (after all applied losses).
-        figures: intermediate figures (name → (value, unit text)) for reports.
+        f_pt: strand stress just after transfer (fpj less every loss up to transfer).
+        f_pe: effective strand stress at the final age (after every loss).
+        applied_transfer: strand stress whose force is applied to the analysis section at
+            transfer (= f_pt on gross sections; = fpbt on transformed sections, where elastic
+            shortening comes out of the analysis itself).
+        applied_final: likewise at the final age (= f_pe on gross sections; fpbt less the
+            time-dependent losses on transformed sections).
+        basis: "gross" or "transformed": the sections the stresses are computed on.
+        milestones: strand stresses at jacking, transfer, deck placement (where the method
+            gives it) and final.
+        figures: intermediate figures (name → (value, display role)) for reports.
         notes: remarks an engineer should read.
     """
 
@@ -64,13 +82,32 @@ class LossBreakdown:
     components: tuple[LossComponent, ...]
     f_pt: float
     f_pe: float
+    applied_transfer: float
+    applied_final: float
+    basis: str = "gross"
+    milestones: tuple[Milestone, ...] = ()
     figures: dict[str, tuple[float, str]] = field(default_factory=dict)
     notes: tuple[str, ...] = ()
 
     @property
     def total(self) -> float:
-        """Total applied loss, MPa."""
-        return sum(c.value for c in self.components if c.applied)
+        """Total loss from jacking to the final age, MPa (fpj − fpe)."""
+        return self.jacking_stress - self.f_pe
+
+    def up_to(self, period: str) -> list[LossComponent]:
+        """The components up to and including a period, in time order."""
+        order = list(PERIODS)
+        return [c for c in self.components if order.index(c.period) <= order.index(period)]
+
+
+#: The periods of a girder's life that losses are grouped by, in time order.
+PERIODS = (
+    "before transfer",
+    "at transfer",
+    "transfer to deck placement",
+    "deck placement to final",
+    "long term",
+)
 
 
 LossMethod = Callable[["Girder"], LossBreakdown]
@@ -89,9 +126,13 @@ def register(name: str) -> Callable[[LossMethod], LossMethod]:
     return deco
 
 
+def load_methods() -> None:
+    """Import the modules that register the loss methods."""
+    from prestress.losses import pretensioned, refined  # noqa: F401
+
+
 def compute_losses(girder: Girder, method: str | None = None) -> LossBreakdown:
     """The losses of the girder by the named method (default: the job's choice)."""
-    from prestress.losses import pretensioned  # noqa: F401  (registers the methods)
-
+    load_methods()
     name = method or girder.job.loss_method
     return METHODS[name](girder)

@@ -9,7 +9,7 @@ from __future__ import annotations
 from typing import TYPE_CHECKING
 
 from prestress.codes.aashto_lrfd import losses as aashto
-from prestress.losses import LossBreakdown, LossComponent, register
+from prestress.losses import LossBreakdown, LossComponent, Milestone, register
 from prestress.units import KSI_MPA
 
 if TYPE_CHECKING:
@@ -69,44 +69,118 @@ def elastic_shortening_gross(girder: Girder) -> tuple[float, dict[str, tuple[flo
     return loss, figures
 
 
+def before_transfer(girder: Girder) -> list[LossComponent]:
+    """The losses in the bed before transfer given by the job (fpj − fpbt), if any."""
+    strand = girder.job.strand
+    before = strand.jacking_stress - strand.stress_before_transfer
+    if before <= 0:
+        return []
+    return [
+        LossComponent(
+            "before_transfer",
+            "Losses in the bed before transfer",
+            before,
+            "before transfer",
+            "given in the job (fpj − fpbt)",
+        )
+    ]
+
+
+def elastic_shortening_component(girder: Girder) -> tuple[LossComponent, dict]:
+    """Elastic shortening at transfer: applied on gross sections, reported on transformed ones."""
+    es, figures = elastic_shortening_gross(girder)
+    transformed = girder.basis == "transformed"
+    clause = "AASHTO LRFD 9th Ed. (2020) Eq. C5.9.3.2.3a-1, gross"
+    if transformed:
+        clause += "; for information (5.9.3.2.3a: implicit in transformed sections)"
+    comp = LossComponent(
+        "elastic_shortening",
+        "Elastic shortening",
+        es,
+        "at transfer",
+        clause,
+        applied=not transformed,
+    )
+    return comp, figures
+
+
+def finish(
+    girder: Girder,
+    *,
+    method: str,
+    title: str,
+    components: list[LossComponent],
+    figures: dict,
+    notes: list[str],
+    deck_stress: float | None = None,
+) -> LossBreakdown:
+    """Assemble a LossBreakdown: real stresses, applied stresses for the basis, milestones."""
+    job = girder.job
+    strand = job.strand
+    fpbt = strand.stress_before_transfer
+    es = sum(c.value for c in components if c.key == "elastic_shortening")
+    time_dep = sum(
+        c.value for c in components if c.period not in ("before transfer", "at transfer")
+    )
+    f_pt = fpbt - es
+    f_pe = f_pt - time_dep
+    if girder.basis == "transformed":
+        applied_transfer, applied_final = fpbt, fpbt - time_dep
+        notes = [
+            *notes,
+            "transformed sections: elastic shortening and the elastic gains from "
+            "later loads come out of the section analysis, so the force applied is Aps "
+            "(fpbt − time-dependent losses) (AASHTO LRFD 5.9.3.2.3a and C5.9.3.1)",
+        ]
+    else:
+        applied_transfer, applied_final = f_pt, f_pe
+    milestones = [
+        Milestone("jacking", "at jacking", None, strand.jacking_stress),
+        Milestone("transfer", "just after transfer", job.times.transfer, f_pt),
+    ]
+    if deck_stress is not None:
+        milestones.append(
+            Milestone("deck_placement", "at deck placement", job.times.deck_placement, deck_stress)
+        )
+    milestones.append(Milestone("final", "final (effective)", job.times.final, f_pe))
+    return LossBreakdown(
+        method=method,
+        title=title,
+        jacking_stress=strand.jacking_stress,
+        components=tuple(components),
+        f_pt=f_pt,
+        f_pe=f_pe,
+        applied_transfer=applied_transfer,
+        applied_final=applied_final,
+        basis=girder.basis,
+        milestones=tuple(milestones),
+        figures=figures,
+        notes=tuple(notes),
+    )
+
+
 @register("aashto-approximate")
 def aashto_approximate(girder: Girder) -> LossBreakdown:
     """Elastic shortening (C5.9.3.2.3a-1, gross section) and the approximate estimate (5.9.3.3)."""
     job = girder.job
     strand = job.strand
-    es, figures = elastic_shortening_gross(girder)
+    es_comp, figures = elastic_shortening_component(girder)
     fci_ksi = job.girder_concrete.fci / KSI_MPA  # type: ignore[operator]
+    low = strand.relaxation == "low"
     lt = aashto.delta_f_pLT_approximate(
         strand.stress_before_transfer / KSI_MPA,
         job.A_ps,
         girder.gross.area,
         job.times.relative_humidity,
         fci_ksi,
-        aashto.DELTA_F_PR_LOW_RELAXATION_KSI if strand.relaxation == "low" else 10.0,
+        aashto.DELTA_F_PR_LOW_RELAXATION_KSI if low else aashto.DELTA_F_PR_STRESS_RELIEVED_KSI,
     )
-    figures["gamma_h"] = (lt["gamma_h"], "ratio")
-    figures["gamma_st"] = (lt["gamma_st"], "ratio")
-    comps = []
-    before = strand.jacking_stress - strand.stress_before_transfer
-    if before > 0:
-        comps.append(
-            LossComponent(
-                "before_transfer",
-                "Losses in the bed before transfer",
-                before,
-                "before transfer",
-                "given in the job (fpj − fpbt)",
-            )
-        )
+    figures["γh (Eq. 5.9.3.3-2)"] = (lt["gamma_h"], "ratio")
+    figures["γst (Eq. 5.9.3.3-3)"] = (lt["gamma_st"], "ratio")
     clause = "AASHTO LRFD 9th Ed. (2020) Eq. 5.9.3.3-1"
-    comps += [
-        LossComponent(
-            "elastic_shortening",
-            "Elastic shortening",
-            es,
-            "at transfer",
-            "AASHTO LRFD 9th Ed. (2020) Eq. C5.9.3.2.3a-1, gross",
-        ),
+    comps = [
+        *before_transfer(girder),
+        es_comp,
         LossComponent(
             "creep",
             "Creep of the girder concrete",
@@ -130,21 +204,17 @@ def aashto_approximate(girder: Girder) -> LossBreakdown:
         ),
     ]
     notes = []
-    if strand.relaxation != "low":
+    if not low:
         notes.append(
-            "ΔfpR = 10 ksi used for stress-relieved strand (5.9.3.3 commentary); "
+            "ΔfpR for stress-relieved strand taken as 10 ksi (5.9.3.3, from memory); "
             "the approximate method is intended for low-relaxation strand."
         )
-    f_pt = strand.stress_before_transfer - es
-    f_pe = f_pt - (lt["total"] * KSI_MPA)
-    return LossBreakdown(
+    return finish(
+        girder,
         method="aashto-approximate",
-        title="AASHTO LRFD 9th Ed. (2020): elastic shortening C5.9.3.2.3a-1 on the gross section; "
+        title="AASHTO LRFD 9th Ed. (2020): elastic shortening C5.9.3.2.3a-1; "
         "approximate long-term estimate 5.9.3.3",
-        jacking_stress=strand.jacking_stress,
-        components=tuple(comps),
-        f_pt=f_pt,
-        f_pe=f_pe,
+        components=comps,
         figures=figures,
-        notes=tuple(notes),
+        notes=notes,
     )

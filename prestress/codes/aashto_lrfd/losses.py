@@ -104,6 +104,9 @@ def gamma_st(f_ci_ksi: float) -> float:
 #: AASHTO LRFD 9th Ed. (2020) 5.9.3.3: relaxation term ΔfpR, ksi, for low-relaxation strand.
 DELTA_F_PR_LOW_RELAXATION_KSI = 2.4
 
+#: AASHTO LRFD 5.9.3.3: relaxation term for stress-relieved strand, ksi (from memory).
+DELTA_F_PR_STRESS_RELIEVED_KSI = 10.0
+
 
 def delta_f_pLT_approximate(
     f_pi_ksi: float,

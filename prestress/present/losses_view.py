@@ -1,0 +1,171 @@
+"""Presentation of prestress losses: a table per stage, a side-by-side comparison, JSON."""
+
+from __future__ import annotations
+
+from typing import Any
+
+from rich import box
+from rich.table import Table
+
+from prestress.losses import LossBreakdown, LossComponent
+from prestress.present.common import fmt, label, quantity
+
+#: Mechanisms, in the order a loss table lists them, and what they are called.
+MECHANISMS = {
+    "before_transfer": "Losses in the bed before transfer",
+    "friction": "Friction",
+    "anchor_set": "Anchor set",
+    "elastic_shortening": "Elastic shortening",
+    "shrinkage": "Shrinkage of the girder",
+    "creep": "Creep of the girder",
+    "relaxation": "Relaxation of the strand",
+    "deck_shrinkage_gain": "Deck shrinkage (gain)",
+    "elastic_gain": "Elastic gain from later loads",
+}
+
+
+def mechanism(c: LossComponent) -> str:
+    """The mechanism a component belongs to (periods merged)."""
+    return c.key.replace("_after_deck", "")
+
+
+def by_mechanism(
+    b: LossBreakdown, components: list[LossComponent] | None = None
+) -> dict[str, float]:
+    """Sum of the losses of each mechanism (MPa), applied or not."""
+    out: dict[str, float] = {}
+    for c in components if components is not None else b.components:
+        out[mechanism(c)] = out.get(mechanism(c), 0.0) + c.value
+    return out
+
+
+PERIOD_OF_MILESTONE = {
+    "transfer": "at transfer",
+    "deck_placement": "transfer to deck placement",
+    "final": "long term",
+}
+
+
+def stage_tables(b: LossBreakdown, A_ps: float, system: str) -> list[Table]:
+    """One table per stage (milestone): the components accumulated to it, stress and force."""
+    su, fu = label(system, "stress"), label(system, "force")
+    tables = []
+    for m in b.milestones:
+        if m.key == "jacking":
+            continue
+        comps = b.up_to(PERIOD_OF_MILESTONE[m.key])
+        age = "" if m.age is None else f", girder age {m.age:g} d"
+        t = Table(
+            title=f"Losses {m.label}{age} — {b.method}",
+            title_justify="left",
+            title_style="bold",
+            box=box.SIMPLE_HEAD,
+            caption=f"Stresses in {su}; losses positive, gains negative. {b.title}.",
+            caption_justify="left",
+        )
+        t.add_column("Mechanism")
+        t.add_column("Period")
+        t.add_column("Loss", justify="right", no_wrap=True)
+        t.add_column("% fpj", justify="right", no_wrap=True)
+        t.add_column("Source")
+        for c in comps:
+            note = "" if c.applied else " (reported, not applied)"
+            t.add_row(
+                c.label + note,
+                c.period,
+                fmt(c.value, system, "stress", 2),
+                f"{100 * c.value / b.jacking_stress:.1f}",
+                c.short_clause,
+            )
+        t.add_section()
+        lost = b.jacking_stress - m.stress
+        t.add_row(
+            "[bold]Total since jacking[/]",
+            "",
+            f"[bold]{fmt(lost, system, 'stress', 2)}[/]",
+            f"[bold]{100 * lost / b.jacking_stress:.1f}[/]",
+            "",
+        )
+        t.add_row(
+            "Strand stress",
+            "",
+            fmt(m.stress, system, "stress", 2),
+            f"{100 * m.stress / b.jacking_stress:.1f}",
+            f"force {fmt(m.stress * A_ps, system, 'force', 1)} {fu}",
+        )
+        tables.append(t)
+    return tables
+
+
+def compare_table(results: list[LossBreakdown], A_ps: float, system: str) -> Table:
+    """Every method side by side: each mechanism's total, the total, fpe and Pe."""
+    su, fu = label(system, "stress"), label(system, "force")
+    t = Table(
+        title="Losses by method, jacking to final",
+        title_justify="left",
+        title_style="bold",
+        box=box.SIMPLE_HEAD,
+        caption=f"Stresses in {su}, forces in {fu}; losses positive, gains negative; "
+        "a mechanism a method does not model is shown as —.",
+        caption_justify="left",
+    )
+    t.add_column("Mechanism")
+    for b in results:
+        t.add_column(b.method, justify="right", no_wrap=True)
+    sums = [by_mechanism(b) for b in results]
+    keys = [k for k in MECHANISMS if any(k in s for s in sums)]
+    for k in keys:
+        t.add_row(MECHANISMS[k], *[fmt(s[k], system, "stress", 2) if k in s else "—" for s in sums])
+    t.add_section()
+    t.add_row("[bold]Total[/]", *[f"[bold]{fmt(b.total, system, 'stress', 2)}[/]" for b in results])
+    t.add_row("% of fpj", *[f"{100 * b.total / b.jacking_stress:.1f}" for b in results])
+    t.add_row("Effective stress fpe", *[fmt(b.f_pe, system, "stress", 2) for b in results])
+    t.add_row("Effective force Pe", *[fmt(b.f_pe * A_ps, system, "force", 1) for b in results])
+    if len(results) > 1:
+        totals = [b.total for b in results]
+        spread = (max(totals) - min(totals)) / (sum(totals) / len(totals))
+        t.caption += f" Spread of the totals: {100 * spread:.0f} % of their mean."
+    return t
+
+
+def to_dict(b: LossBreakdown, A_ps: float, system: str) -> dict[str, Any]:
+    """A loss breakdown as JSON-ready data."""
+    return {
+        "method": b.method,
+        "title": b.title,
+        "basis": b.basis,
+        "jacking_stress": quantity(b.jacking_stress, system, "stress"),
+        "components": [
+            {
+                "key": c.key,
+                "mechanism": mechanism(c),
+                "label": c.label,
+                "period": c.period,
+                "loss": quantity(c.value, system, "stress"),
+                "percent_of_jacking": 100.0 * c.value / b.jacking_stress,
+                "clause": c.clause,
+                "applied": c.applied,
+            }
+            for c in b.components
+        ],
+        "by_mechanism": {k: quantity(v, system, "stress") for k, v in by_mechanism(b).items()},
+        "stages": [
+            {
+                "name": m.key,
+                "label": m.label,
+                "age": None if m.age is None else {"value": m.age, "unit": "day"},
+                "strand_stress": quantity(m.stress, system, "stress"),
+                "force": quantity(m.stress * A_ps, system, "force"),
+                "loss_since_jacking": quantity(b.jacking_stress - m.stress, system, "stress"),
+            }
+            for m in b.milestones
+        ],
+        "total": quantity(b.total, system, "stress"),
+        "effective_stress": quantity(b.f_pe, system, "stress"),
+        "effective_force": quantity(b.f_pe * A_ps, system, "force"),
+        "figures": {
+            k: (quantity(v, system, role) if role != "ratio" else v)
+            for k, (v, role) in b.figures.items()
+        },
+        "notes": list(b.notes),
+    }
