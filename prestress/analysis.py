@@ -16,7 +16,7 @@ import numpy as np
 
 from prestress.errors import InputError
 from prestress.losses import LossBreakdown, compute_losses
-from prestress.model import FIBERS, FiberLimit, Job
+from prestress.model import FiberLimit, Job
 from prestress.sections.composite import (
     AssembledSection,
     StrandLayer,
@@ -26,6 +26,7 @@ from prestress.sections.composite import (
     transformed_girder,
 )
 from prestress.sections.properties import GrossProperties, gross_properties
+from prestress.stages import ZoneStation, fiber_stress  # noqa: F401  (re-exported)
 
 SIGN_CONVENTION = "tension +, compression −"
 
@@ -115,7 +116,13 @@ def resolve_girder(job: Job, *, cli_libraries: tuple[str, ...] = ()) -> Girder:
     if job.loss_basis == "transformed":
         gc = job.girder_concrete
         assert gc.Eci is not None
+        # strands at their midlength heights (harped strands: between the hold-downs)
         layers = [StrandLayer(r.count * job.strand.area, r.height) for r in job.rows]
+        if any(r.harp is not None for r in job.rows):
+            notices.append(
+                "transformed sections use the strands at their midlength heights; "
+                "near the ends of harped strands this is an approximation"
+            )
         sec_t = transformed_girder(
             gross, layers, job.strand.Ep / gc.Eci, "girder, transformed at transfer (Eci)"
         )
@@ -124,6 +131,7 @@ def resolve_girder(job: Job, *, cli_libraries: tuple[str, ...] = ()) -> Girder:
         )
         if job.deck is not None:
             sec_c = transformed_composite(gross, job.deck, n_deck, layers, job.strand.Ep / gc.Ec)
+    job = _with_distribution_factor(job, gross, comp, n_deck)
     return Girder(
         job=job,
         section_name=name,
@@ -155,13 +163,71 @@ def _replace_deck(job: Job, deck) -> Job:  # type: ignore[no-untyped-def]
     return replace(job, deck=deck)
 
 
+def _with_distribution_factor(job: Job, gross: GrossProperties, comp, n_deck: float) -> Job:  # type: ignore[no-untyped-def]
+    """Compute the HL-93 moment distribution factor by AASHTO LRFD 4.6.2.2 when asked."""
+    from dataclasses import replace
+
+    live = job.loads.live
+    if live.model != "HL-93" or live.distribution_factor is not None:
+        return job
+    from prestress.codes.aashto_lrfd import live_load as ll
+    from prestress.units import FOOT_MM
+
+    field = "loads.live.distribution_factor"
+    if job.spacing is None or job.deck is None:
+        raise InputError(
+            "girder.spacing and a [deck] to compute the distribution factor "
+            "(AASHTO LRFD 4.6.2.2.2b-1)",
+            file=job.file,
+            field=field,
+        )
+    deck = job.deck
+    e_g = gross.yt + deck.haunch + deck.thickness / 2.0  # girder centroid to deck centroid
+    n = 1.0 / n_deck  # 4.6.2.2.1-2: n = E_beam / E_deck
+    Kg = ll.K_g(n, gross.Ix / INCH4, gross.area / INCH2, e_g / 25.4)
+    S, L, ts = job.spacing / FOOT_MM, job.span / FOOT_MM, deck.thickness / 25.4
+    try:
+        one = ll.g_moment_interior_one_lane(S, L, ts, Kg, live.girders)
+        multi = ll.g_moment_interior_multi_lane(S, L, ts, Kg, live.girders)
+        skew = (
+            ll.skew_factor_moment(live.skew_deg, S, L, ts, Kg, live.girders)
+            if live.skew_deg > 0
+            else 1.0
+        )
+    except (ValueError, TypeError) as exc:
+        raise InputError(
+            f"inputs within the range of AASHTO LRFD Table 4.6.2.2.2b-1 ({exc})",
+            file=job.file,
+            field=field,
+        ) from None
+    g = max(one, multi) * skew
+    source = (
+        f"AASHTO LRFD 9th Ed. (2020) Table 4.6.2.2.2b-1, interior girder: one lane "
+        f"{one:.3f}, two or more {multi:.3f}"
+        + (f", skew × {skew:.3f}" if skew != 1 else "")
+        + f"; Kg = {Kg:,.0f} in⁴"
+    )
+    loads = replace(
+        job.loads, live=replace(live, distribution_factor=g, distribution_source=source)
+    )
+    return replace(job, loads=loads)
+
+
+INCH2 = 25.4**2
+INCH4 = 25.4**4
+
+
 def _check_strands_inside(job: Job, poly) -> None:  # type: ignore[no-untyped-def]
-    """Every strand must lie inside the concrete with at least its own radius of cover."""
+    """Every strand must lie inside the concrete with at least its own radius of cover.
+
+    Checked at midlength and, for harped rows, at the girder ends too.
+    """
     from shapely.geometry import Point
 
     for i, row in enumerate(job.rows):
-        for x in row.x_positions():
-            p = Point(float(x), row.height)
+        heights = [row.height] + ([row.harp[0]] if row.harp is not None else [])
+        for x, y in ((x, y) for x in row.x_positions() for y in heights):
+            p = Point(float(x), y)
             if (
                 not poly.contains(p)
                 or poly.exterior.distance(p) < job.strand.diameter / 2.0
@@ -172,7 +238,7 @@ def _check_strands_inside(job: Job, poly) -> None:  # type: ignore[no-untyped-de
                     "the section at that height)",
                     file=job.file,
                     field=f"strands.rows[{i}]",
-                    got=f"a strand at x = {x / 25.4:.2f} in, y = {row.height / 25.4:.2f} in "
+                    got=f"a strand at x = {x / 25.4:.2f} in, y = {y / 25.4:.2f} in "
                     "outside the section",
                 )
 
@@ -213,6 +279,7 @@ class StationResult:
     eccentricity: float  # mm, positive below the girder centroid
     moments: dict[str, float]  # factored moments by load, N*mm
     fibers: dict[str, FiberResult]
+    cgs: float | None = None  # height of the cgs above the girder bottom, mm
 
     @property
     def ok(self) -> bool:
@@ -268,6 +335,7 @@ class CheckResult:
     losses: LossBreakdown
     stages: tuple[StageResult, ...]
     notes: tuple[str, ...] = field(default_factory=tuple)
+    zone: tuple[ZoneStation, ...] = ()
 
     @property
     def ok(self) -> bool:
@@ -294,9 +362,7 @@ def check_fiber(stress: float, limit: FiberLimit | None, strength: float, sym: s
     if limit.compression_fraction is not None:
         texts.append(f"{limit.compression_fraction:g} {sym}")
     if limit.tension is not None:
-        t = limit.tension
-        cap = "" if t.cap is None else " ≤ cap"
-        texts.append(f"{t.coefficient:g}√{sym} ({t.root_unit}){cap}")
+        texts.append(limit.tension.text(sym))
     util: float | None = None
     ok = True
     if stress < 0 and comp is not None:
@@ -312,153 +378,133 @@ def check_fiber(stress: float, limit: FiberLimit | None, strength: float, sym: s
     return FiberResult(stress, comp, tens, util, ok, "; ".join(texts) or "not checked")
 
 
-def fiber_stress(sec: AssembledSection, fiber: str, P: float, e: float, M: float) -> float:
-    """Stress at a fiber of a section (MPa): −P/A − (M − P e)(y − yb)/I, times its modular ratio.
-
-    Args:
-        sec: the section carrying the increment.
-        fiber: fiber name.
-        P: prestress force on this section, N (positive; compression in the concrete).
-        e: its eccentricity below this section's centroid, mm.
-        M: applied moment, N*mm (sagging +).
-    """
-    return sec.n_fiber[fiber] * (-P / sec.area - (M - P * e) * sec.c(fiber) / sec.I)
-
-
-def force_factor(job: Job, x: float) -> float:
-    """Share of the full prestress force developed at x (mm from the left end).
-
-    Linear over the transfer length from each end (AASHTO LRFD 9th Ed. (2020) 5.9.4.3.1).
-    """
-    lt = job.transfer_length
-    return float(min(1.0, max(0.0, x) / lt, max(0.0, job.length - x) / lt))
-
-
-def _span_moment(w: float, span: float, x: float) -> float:
-    """Moment of a uniform load w (N/mm) on a simple span at x (mm): w x (L − x) / 2."""
-    x = min(max(x, 0.0), span)
-    return w * x * (span - x) / 2.0
-
-
-def stage_transfer(girder: Girder, losses: LossBreakdown) -> StageResult:
-    """Release in the casting bed: initial prestress and self-weight on the girder length."""
+def _limits_of(girder: Girder, key: str) -> dict[str, tuple[float | None, float | None]]:
+    """(compression, tension) limit stresses of each girder fiber in a stage (MPa)."""
     job = girder.job
-    sec = girder.section_transfer
-    assert sec is not None
-    e = girder.eccentricity(sec)
-    lt = job.transfer_length
-    L = job.length
-    stations = [
-        ("left lt", lt),
-        ("midlength", L / 2.0),
-        ("right lt", L - lt),
-    ]
-    fci = job.girder_concrete.fci
-    assert fci is not None
-    results = []
-    for name, x in sorted(stations, key=lambda s: s[1]):
-        P = job.A_ps * losses.applied_transfer * force_factor(job, x)
-        M = _span_moment(girder.self_weight, L, x)
-        fibers = {}
-        for fiber in ("girder_bottom", "girder_top"):
-            f = fiber_stress(sec, fiber, P, e, M)
-            fibers[fiber] = check_fiber(f, job.limits.get("transfer", fiber), fci, "f'ci")
-        results.append(StationResult(name, x, None, P, e, {"girder": M}, fibers))
-    return StageResult(
-        key="transfer",
-        title="Release in the casting bed",
-        description="initial prestress and girder self-weight on the girder length, supported "
-        f"at its ends; section: {sec.name}",
-        strength_text=f"f'ci = {fci:.6g} MPa",
-        stations=tuple(results),
-    )
-
-
-SERVICE_TITLES = {
-    "service_permanent": (
-        "Final service: effective prestress and permanent loads",
-        "Service I without live load",
-    ),
-    "service_i": ("Final service: Service I", "effective prestress, permanent loads and live load"),
-    "service_iii": (
-        "Final service: Service III",
-        "effective prestress, permanent loads and factored live load (tension check)",
-    ),
-}
-
-
-def stage_service(girder: Girder, losses: LossBreakdown, key: str) -> StageResult:
-    """Final service at the tenth points of the design span for one service combination."""
-    job = girder.job
-    combo = job.combinations[key]
-    nc = girder.section_service
-    assert nc is not None
-    comp = girder.section_composite
-    e = girder.eccentricity(nc)
-    span = job.span
-    fc = job.girder_concrete.fc
-    results = []
-    for i in range(11):
-        xb = span * i / 10.0
-        x = job.bearing_offset + xb
-        P = job.A_ps * losses.applied_final * force_factor(job, x)
-        M_nc = {
-            "girder": combo.dead * _span_moment(girder.self_weight, span, xb),
-            "deck": combo.dead * _span_moment(girder.deck_weight, span, xb),
-        }
-        M_c = {
-            "superimposed": combo.dead
-            * _span_moment(job.loads.superimposed_dead + job.loads.wearing_surface, span, xb),
-            "live": combo.live * float(job.loads.live.moment_at(np.array([xb]), span)[0]),
-        }
-        M_nc_total = sum(M_nc.values())
-        M_c_total = sum(M_c.values())
-        fibers = {}
-        for fiber in FIBERS:
-            if fiber == "deck_top":
-                if comp is None:
-                    continue
-                f = fiber_stress(comp, fiber, 0.0, 0.0, M_c_total)
-                assert job.deck is not None
-                strength, sym = job.deck.concrete.fc, "f'c,deck"
-            else:
-                f = fiber_stress(nc, fiber, P, e, M_nc_total)
-                if comp is not None:
-                    f += fiber_stress(comp, fiber, 0.0, 0.0, M_c_total)
-                else:
-                    f += fiber_stress(nc, fiber, 0.0, 0.0, M_c_total)
-                strength, sym = fc, "f'c"
-            fibers[fiber] = check_fiber(f, job.limits.get(key, fiber), strength, sym)
-        name = "bearing" if i in (0, 10) else ("midspan" if i == 5 else f"{i / 10:.1f} span")
-        results.append(StationResult(name, x, xb, P, e, {**M_nc, **M_c}, fibers))
-    title, desc = SERVICE_TITLES[key]
-    notes = []
-    if job.loads.live.moments_tenth_points is None and combo.live > 0:
-        notes.append(
-            "live-load moment distributed along the span as a parabola from the "
-            "midspan value given in the job"
+    gc = job.girder_concrete
+    strength = gc.fci if key in ("transfer", "handling") else gc.fc
+    assert strength is not None
+    out = {}
+    for fiber in ("girder_bottom", "girder_top"):
+        lim = job.limits.get(key, fiber)
+        if lim is None:
+            out[fiber] = (None, None)
+            continue
+        comp = (
+            -lim.compression_fraction * strength if lim.compression_fraction is not None else None
         )
-    return StageResult(
-        key=key,
-        title=title,
-        description=f"{desc}; load factors: dead {combo.dead:g}, live {combo.live:g}; "
-        f"prestress, girder and deck weights on the {nc.name} section"
-        + (f", superimposed dead and live load on the {comp.name} section" if comp else ""),
-        strength_text=f"f'c = {fc:.6g} MPa",
-        stations=tuple(results),
-        notes=tuple(notes),
-    )
+        tens = lim.tension.value(strength) if lim.tension is not None else None
+        out[fiber] = (comp, tens)
+    return out
 
 
 def run_check(job: Job, *, cli_libraries: tuple[str, ...] = ()) -> CheckResult:
-    """Run the whole check of a job: section, losses, stresses per stage, limits."""
+    """Run the whole check of a job: section, losses, stresses per stage, limits, zone."""
+    from prestress.stages import stage_specs, stage_stresses, stations, zone_bounds
+
     girder = resolve_girder(job, cli_libraries=cli_libraries)
+    job = girder.job
     losses = compute_losses(girder)
-    stages = [stage_transfer(girder, losses)]
-    for key in ("service_permanent", "service_i", "service_iii"):
-        stages.append(stage_service(girder, losses, key))
+    all_st = stations(girder)
+    gc = job.girder_concrete
+    results = []
+    bounds: dict[float, list[tuple[float, float, str, str]]] = {}
+    notes = list(girder.notices + losses.notes)
+    for spec in stage_specs(girder):
+        raw = stage_stresses(girder, losses, spec, all_st)
+        strength = gc.fci if spec.strength == "fci" else gc.fc
+        sym = "f'ci" if spec.strength == "fci" else "f'c"
+        assert strength is not None
+        st_results = []
+        for i, st in enumerate(raw.stations):
+            fibers = {}
+            for fiber, f in raw.stresses.items():
+                if fiber == "deck_top":
+                    assert job.deck is not None
+                    fibers[fiber] = check_fiber(
+                        float(f[i]),
+                        job.limits.get(spec.key, fiber),
+                        job.deck.concrete.fc,
+                        "f'c,deck",
+                    )
+                else:
+                    fibers[fiber] = check_fiber(
+                        float(f[i]), job.limits.get(spec.key, fiber), strength, sym
+                    )
+            st_results.append(
+                StationResult(
+                    name=st.name,
+                    x=st.x,
+                    x_bearing=st.x - job.bearing_offset if spec.support == "bearings" else None,
+                    force=float(raw.force[i]),
+                    eccentricity=float(raw.eccentricity[i]),
+                    moments={k: float(v[i]) for k, v in raw.moments.items()},
+                    fibers=fibers,
+                    cgs=float(raw.cgs[i]),
+                )
+            )
+        stage_notes = []
+        if raw.note:
+            stage_notes.append(raw.note)
+        if (
+            "live" in spec.loads
+            and job.loads.live.model == "given"
+            and job.loads.live.moments_tenth_points is None
+            and spec.live > 0
+        ):
+            stage_notes.append(
+                "live-load moment distributed along the span as a parabola "
+                "from the midspan value given in the job"
+            )
+        results.append(
+            StageResult(
+                key=spec.key,
+                title=spec.title,
+                description=f"{spec.description}; prestress on the {raw.section.name} section"
+                + (
+                    f", superimposed and live loads on the {raw.composite.name} section"
+                    if raw.composite is not None
+                    and any(k in spec.loads for k in ("superimposed", "live"))
+                    else ""
+                ),
+                strength_text=f"{sym} = {strength:.6g} MPa",
+                stations=tuple(st_results),
+                notes=tuple(stage_notes),
+            )
+        )
+        for st, b in zip(raw.stations, zone_bounds(raw, _limits_of(girder, spec.key)), strict=True):
+            bounds.setdefault(round(st.x, 3), []).append(b)
+    zone = []
+    for st in all_st:
+        bs = bounds.get(round(st.x, 3), [])
+        lo, hi, who_lo, who_hi = -np.inf, np.inf, "", ""
+        for b_lo, b_hi, w_lo, w_hi in bs:
+            if b_lo > lo:
+                lo, who_lo = b_lo, w_lo
+            if b_hi < hi:
+                hi, who_hi = b_hi, w_hi
+        assert job.layout is not None
+        zone.append(
+            ZoneStation(
+                st,
+                None if lo == -np.inf else float(lo),
+                None if hi == np.inf else float(hi),
+                float(job.layout.cgs(np.array([st.x]))[0]),
+                who_lo,
+                who_hi,
+            )
+        )
+    if job.layout is not None:
+        from prestress.layout import debonding_warnings
+
+        notes += [
+            f"detailing: {w}"
+            for w in debonding_warnings(
+                job.layout, [r.x if r.x else tuple(r.x_positions()) for r in job.rows]
+            )
+        ]
     return CheckResult(
-        girder=girder, losses=losses, stages=tuple(stages), notes=girder.notices + losses.notes
+        girder=girder, losses=losses, stages=tuple(results), notes=tuple(notes), zone=tuple(zone)
     )
 
 

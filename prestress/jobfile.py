@@ -9,8 +9,11 @@ from __future__ import annotations
 
 from pathlib import Path
 
+import numpy as np
+
 from prestress.codes.aashto_lrfd import effective_width
 from prestress.errors import InputError
+from prestress.layout import Layout, StrandSet
 from prestress.materials import MODULUS_FORMULAS, concrete_modulus
 from prestress.model import (
     FIBERS,
@@ -19,6 +22,7 @@ from prestress.model import (
     Concrete,
     Deck,
     FiberLimit,
+    Handling,
     Job,
     LimitSet,
     LiveLoad,
@@ -154,8 +158,9 @@ def _tension(t: Table, key: str) -> TensionLimit | None:
     coeff = sub.number("coefficient", low=0.0, high=100.0)
     unit = sub.string("root_unit", choices=("ksi", "psi", "MPa"))
     cap = sub.quantity("cap", "stress", None, positive=True)
+    exponent = sub.number("exponent", 0.5, low=0.1, high=1.0)
     sub.done()
-    return TensionLimit(coefficient=coeff, root_unit=unit, cap=cap)
+    return TensionLimit(coefficient=coeff, root_unit=unit, cap=cap, exponent=exponent)
 
 
 def _fiber_limit(t: Table, default: FiberLimit | None = None) -> FiberLimit:
@@ -217,6 +222,37 @@ def _section(g: Table) -> SectionRef:
 def _live(t: Table | None) -> LiveLoad:
     if t is None:
         return LiveLoad(moment_midspan=0.0, moments_tenth_points=None)
+    model = t.string("model", "given", choices=("given", "HL-93"))
+    if model == "HL-93":
+        impact = t.number("impact", 0.33, low=0.0, high=1.0)
+        raw = t.raw("distribution_factor", expected='a number of lanes per girder, or "aashto"')
+        girders, skew = None, 0.0
+        if isinstance(raw, str) and raw.lower() == "aashto":
+            df, source = None, "AASHTO LRFD 4.6.2.2.2b-1"
+            girders = t.integer("girders", low=3)
+            skew = t.number("skew_degrees", 0.0, low=0.0, high=60.0)
+        elif isinstance(raw, int | float) and not isinstance(raw, bool) and 0 < raw <= 3:
+            df, source = float(raw), "given in the job"
+            t.raw("girders", None)
+            t.raw("skew_degrees", None)
+        else:
+            raise t.error(
+                "distribution_factor",
+                'a number of lanes per girder from 0 to 3, or "aashto"',
+                repr(raw),
+            )
+        t.string("note", "")
+        t.done()
+        return LiveLoad(
+            None,
+            None,
+            model="HL-93",
+            distribution_factor=df,
+            distribution_source=source,
+            impact=impact,
+            girders=girders,
+            skew_deg=skew,
+        )
     if t.has("moments"):
         raw = t.raw("moments")
         if not isinstance(raw, list) or len(raw) != 11:
@@ -226,12 +262,29 @@ def _live(t: Table | None) -> LiveLoad:
             for i, v in enumerate(raw)
         )
         t.raw("moment_midspan", None)
+        t.string("note", "")
         t.done()
         return LiveLoad(moment_midspan=None, moments_tenth_points=vals)
     m = t.quantity("moment_midspan", "moment", non_negative=True)
     t.string("note", "")
     t.done()
     return LiveLoad(moment_midspan=m, moments_tenth_points=None)
+
+
+def _diaphragms(ld: Table, span: float) -> tuple[tuple[float, float], ...]:
+    out = []
+    for i, d in enumerate(ld.tables("diaphragms", required=False)):
+        at = d.quantity("at", "length", non_negative=True)
+        if at > span:
+            raise d.error(
+                "at",
+                "a position on the span, measured from the left bearing",
+                f"{at / 304.8:.2f} ft on a {span / 304.8:.2f} ft span",
+            )
+        out.append((at, d.quantity("weight", "force", positive=True)))
+        d.done()
+        del i
+    return tuple(out)
 
 
 def _percent(t: Table, key: str) -> float:
@@ -243,6 +296,229 @@ def _percent(t: Table, key: str) -> float:
     if not 0.0 <= value <= 100.0:
         raise t.error(key, "a relative humidity from 0 to 100 percent", f"{value:g}")
     return value
+
+
+def _hold_downs(h: Table, length: float) -> tuple[float, float]:
+    """Hold-down points from the left end (mm): one symmetric value or two positions."""
+    if h.has("hold_downs"):
+        raw = h.raw("hold_downs")
+        if not isinstance(raw, list) or len(raw) != 2:
+            raise h.error("hold_downs", 'two positions from the left end, e.g. ["32 ft", "50 ft"]')
+        a, b = (
+            to_internal(v, "length", field=f"{h.field('hold_downs')}[{i}]", file=h.file)
+            for i, v in enumerate(raw)
+        )
+        h.raw("hold_down", None)
+    else:
+        raw = h.raw(
+            "hold_down",
+            expected='a distance from each end ("32 ft") or a fraction of the girder length (0.4)',
+        )
+        if isinstance(raw, int | float) and not isinstance(raw, bool):
+            if not 0.0 < raw <= 0.5:
+                raise h.error(
+                    "hold_down", "a fraction of the girder length from 0 to 0.5", str(raw)
+                )
+            a = raw * length
+        else:
+            a = to_internal(raw, "length", field=h.field("hold_down"), file=h.file)
+        b = length - a
+    if not 0.0 < a <= b < length:
+        raise h.error(
+            "hold_downs" if h.has("hold_downs") else "hold_down",
+            "hold-down points within the girder, left one first",
+            f"{a / 304.8:.2f} ft and {b / 304.8:.2f} ft on a {length / 304.8:.2f} ft girder",
+        )
+    return a, b
+
+
+def _row(r: Table, index: int, length: float) -> StrandRow:
+    """One [[strands.rows]] table: straight, harped or partly debonded strands."""
+    height = r.quantity("height", "length", positive=True)
+    if r.has("positions"):
+        raw = r.raw("positions")
+        if not isinstance(raw, list) or not raw:
+            raise r.error("positions", 'a list of horizontal positions, e.g. ["-3 in", "3 in"]')
+        xs = tuple(
+            to_internal(v, "length", field=f"{r.field('positions')}[{i}]", file=r.file)
+            for i, v in enumerate(raw)
+        )
+        r.raw("count", None)
+        r.raw("spacing", None)
+    else:
+        count = r.integer("count", low=1)
+        spacing = r.quantity("spacing", "length", 2.0 * INCH_MM, positive=True)
+        xs = tuple(float(v) for v in (np.arange(count) - (count - 1) / 2.0) * spacing)
+    harp = None
+    h = r.table("harp", required=False)
+    if h is not None:
+        end_height = h.quantity("end_height", "length", positive=True)
+        harp = (end_height, _hold_downs(h, length))
+        h.done()
+    debonds = []
+    for d in r.tables("debond", required=False):
+        if harp is not None:
+            raise d.error("count", "straight strands: harped strands are not debonded here")
+        if d.has("length"):
+            left = right = d.quantity("length", "length", positive=True)
+            d.raw("left", None)
+            d.raw("right", None)
+        else:
+            left = d.quantity("left", "length", positive=True)
+            right = d.quantity("right", "length", positive=True)
+        for key, v in (("length", left), ("left", left), ("right", right)):
+            if v >= length / 2.0 and (d.has(key) or key == "length"):
+                raise d.error(
+                    key if d.has(key) else "left",
+                    "a debonded length shorter than half the girder length",
+                    f"{v / 304.8:.2f} ft",
+                )
+        if d.has("positions"):
+            raw = d.raw("positions")
+            if (
+                not isinstance(raw, list)
+                or not raw
+                or not all(isinstance(k, int) and 1 <= k <= len(xs) for k in raw)
+                or len(set(raw)) != len(raw)
+            ):
+                raise d.error(
+                    "positions",
+                    f"strand numbers from 1 to {len(xs)} (left to right) in the row, each once",
+                )
+            idx = tuple(k - 1 for k in raw)
+            d.raw("count", None)
+        else:
+            idx = (d.integer("count", low=1),)  # resolved below, inner strands first
+            idx = ("count", idx[0])  # type: ignore[assignment]
+        debonds.append((idx, left, right, d.field("count")))
+        d.done()
+    r.done()
+    # assign debonded strands: explicit positions, else innermost first in symmetric pairs
+    order = sorted(range(len(xs)), key=lambda k: (abs(xs[k]), xs[k]))
+    taken: set[int] = set()
+    resolved = []
+    for idx, left, right, field in debonds:
+        if idx and idx[0] == "count":
+            n = idx[1]
+            free = [k for k in order if k not in taken]
+            if n > len(free):
+                raise InputError(
+                    f"at most {len(free)} debonded strands in this row",
+                    file=r.file,
+                    field=field,
+                    got=str(n),
+                )
+            chosen = tuple(free[:n])
+        else:
+            chosen = idx
+            if taken & set(chosen):
+                raise InputError("each strand debonded once", file=r.file, field=field)
+        taken |= set(chosen)
+        resolved.append((tuple(sorted(chosen)), left, right))
+    return StrandRow(
+        height=height,
+        count=len(xs),
+        spacing=0.0,
+        x=xs,
+        harp=harp,
+        debond=tuple(resolved),
+        index=index,
+    )
+
+
+def _grid_rows(g: Table, first_index: int) -> list[StrandRow]:
+    """A [strands.grid]: heights and positions, filled with `count` strands in order."""
+    raw_h = g.raw("heights", expected='a list of row heights, e.g. ["2 in", "4 in"]')
+    raw_x = g.raw("positions", expected='a list of horizontal positions, e.g. ["-11 in", ...]')
+    if not isinstance(raw_h, list) or not raw_h:
+        raise g.error("heights", 'a list of row heights, e.g. ["2 in", "4 in"]')
+    if not isinstance(raw_x, list) or not raw_x:
+        raise g.error("positions", 'a list of horizontal positions, e.g. ["-11 in", "-9 in"]')
+    hs = [
+        to_internal(v, "length", field=f"{g.field('heights')}[{i}]", file=g.file)
+        for i, v in enumerate(raw_h)
+    ]
+    xs = [
+        to_internal(v, "length", field=f"{g.field('positions')}[{i}]", file=g.file)
+        for i, v in enumerate(raw_x)
+    ]
+    count = g.integer("count", low=1)
+    fill = g.string("fill", "bottom-up", choices=("bottom-up", "given"))
+    if fill == "given":
+        raw = g.raw("order", expected="a list of [row, position] pairs (1-based)")
+        if (
+            not isinstance(raw, list)
+            or len(raw) < count
+            or not all(
+                isinstance(p, list)
+                and len(p) == 2
+                and all(isinstance(k, int) for k in p)
+                and 1 <= p[0] <= len(hs)
+                and 1 <= p[1] <= len(xs)
+                for p in raw
+            )
+        ):
+            raise g.error(
+                "order",
+                f"at least {count} [row, position] pairs with rows 1 to "
+                f"{len(hs)} and positions 1 to {len(xs)}",
+            )
+        slots = [(p[0] - 1, p[1] - 1) for p in raw[:count]]
+        if len(set(slots)) != len(slots):
+            raise g.error("order", "each grid position once")
+    else:
+        g.raw("order", None)
+        centre_out = sorted(range(len(xs)), key=lambda k: (abs(xs[k]), xs[k]))
+        row_order = sorted(range(len(hs)), key=lambda k: hs[k])
+        slots = [(ri, ci) for ri in row_order for ci in centre_out][:count]
+        if len(slots) < count:
+            raise g.error(
+                "count", f"at most {len(hs) * len(xs)} strands (the grid's size)", str(count)
+            )
+    g.done()
+    rows = []
+    for ri in sorted({r for r, _ in slots}, key=lambda k: hs[k]):
+        cols = sorted(xs[c] for r, c in slots if r == ri)
+        rows.append(
+            StrandRow(
+                height=hs[ri],
+                count=len(cols),
+                spacing=0.0,
+                x=tuple(cols),
+                index=first_index + len(rows),
+            )
+        )
+    return rows
+
+
+def build_layout(
+    rows: list[StrandRow], area: float, length: float, lt: float, rules: dict[str, float]
+) -> Layout:
+    """The strand sets of the rows: bonded, debonded groups and harped rows."""
+    sets = []
+    for i, row in enumerate(rows):
+        label = f"row {i + 1} at {row.height / 25.4:.2f} in"
+        deb = {k for idx, _l, _r in row.debond for k in idx}
+        bonded = tuple(x for k, x in enumerate(row.x) if k not in deb)
+        if row.harp is not None:
+            end, hd = row.harp
+            sets.append(StrandSet(f"{label}, harped", i, row.x, area, row.height, end, hd))
+            continue
+        if bonded:
+            sets.append(StrandSet(label, i, bonded, area, row.height))
+        for idx, left, right in row.debond:
+            sets.append(
+                StrandSet(
+                    f"{label}, debonded {left / 304.8:.3g} ft",
+                    i,
+                    tuple(row.x[k] for k in idx),
+                    area,
+                    row.height,
+                    debond_left=left,
+                    debond_right=right,
+                )
+            )
+    return Layout(sets=tuple(sets), length=length, transfer_length=lt, rules=rules)
 
 
 def _effective_width(
@@ -345,22 +621,34 @@ def load_job(path: str | Path) -> Job:
 
     st = top.table("strands")
     assert st is not None
-    rows = []
-    for r in st.tables("rows"):
-        rows.append(
-            StrandRow(
-                height=r.quantity("height", "length", positive=True),
-                count=r.integer("count", low=1),
-                spacing=r.quantity("spacing", "length", 2.0 * INCH_MM, positive=True),
-            )
-        )
-        r.done()
     lt_default = 60.0 * strand.diameter
     lt = st.quantity("transfer_length", "length", lt_default, positive=True)
     lt_source = (
         "AASHTO LRFD 9th Ed. (2020) 5.9.4.3.1 (60 d_b)" if lt == lt_default else "given in the job"
     )
+    rows = [_row(r, i, length) for i, r in enumerate(st.tables("rows", required=False))]
+    grid = st.table("grid", required=False)
+    if grid is not None:
+        rows += _grid_rows(grid, len(rows))
+    if not rows:
+        raise st.error(
+            "rows", "at least one [[strands.rows]] table or a [strands.grid]", "no strands"
+        )
+    rules: dict[str, float] = {}
+    det = st.table("detailing", required=False)
+    if det is not None:
+        for key in ("max_share_total", "max_share_row", "max_terminations_share"):
+            if det.has(key):
+                rules[key] = det.number(key, low=0.0, high=1.0)
+            else:
+                det.raw(key, None)
+        if det.has("max_terminations_count"):
+            rules["max_terminations_count"] = det.integer("max_terminations_count", low=0)
+        else:
+            det.raw("max_terminations_count", None)
+        det.done()
     st.done()
+    layout = build_layout(rows, strand.area, length, lt, rules)
 
     ld = top.table("loads", required=False)
     if ld is None:
@@ -373,6 +661,7 @@ def load_job(path: str | Path) -> Job:
                 "other_noncomposite", "line_load", 0.0, non_negative=True
             ),
             live=_live(ld.table("live", required=False)),
+            diaphragms=_diaphragms(ld, span),
         )
         ld.done()
 
@@ -414,6 +703,34 @@ def load_job(path: str | Path) -> Job:
                 c.done()
         cb.done()
 
+    handling = None
+    hd = top.table("handling", required=False)
+    if hd is not None:
+        lift = hd.quantity("lift_point", "length", positive=True)
+        if lift >= length / 2.0:
+            raise hd.error("lift_point", "a lifting point closer to the end than mid-length")
+        handling = Handling(lift, hd.number("dynamic_factor", 1.0, low=0.5, high=2.0))
+        hd.done()
+    user_stations = []
+    raw_st = top.raw("stations", [], expected="a list of stations")
+    if not isinstance(raw_st, list):
+        raise InputError(
+            'a list of stations, e.g. [{ name = "splice", at = "30 ft" }]',
+            file=file,
+            field="stations",
+        )
+    for i, item in enumerate(raw_st):
+        if not isinstance(item, dict):
+            raise InputError(
+                'a table { name = "...", at = "30 ft" }', file=file, field=f"stations[{i}]"
+            )
+        t_ = Table(item, file=file, path=f"stations[{i}]")
+        x = t_.quantity("at", "length", non_negative=True)
+        if x > length:
+            raise t_.error("at", "a position on the girder, from its left end")
+        user_stations.append((t_.string("name", f"station {i + 1}"), x))
+        t_.done()
+
     lim = top.table("limits")
     assert lim is not None
     if lim.has("file"):
@@ -440,6 +757,9 @@ def load_job(path: str | Path) -> Job:
         deck=deck,
         strand=strand,
         rows=tuple(rows),
+        layout=layout,
+        handling=handling,
+        user_stations=tuple(user_stations),
         loads=loads,
         times=times,
         limits=limits,

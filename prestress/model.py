@@ -10,6 +10,8 @@ from dataclasses import dataclass, field
 
 import numpy as np
 
+from prestress.layout import Layout
+
 
 @dataclass(frozen=True)
 class Concrete:
@@ -50,14 +52,30 @@ class Strand:
 
 @dataclass(frozen=True)
 class StrandRow:
-    """A horizontal row of straight, fully bonded strands (mm from the girder bottom)."""
+    """A horizontal row of strands as the job gives it (mm from the girder bottom).
+
+    Attributes:
+        height: height of the row between the hold-downs (everywhere when straight).
+        count: number of strands.
+        spacing: spacing when the row was given by count and spacing (0 otherwise).
+        x: horizontal positions of the strands (mm, centred on the girder axis).
+        harp: (end height, (left, right) hold-down positions) when the row is harped.
+        debond: debonded groups: (strand indices in the row, left length, right length).
+        index: the row's index in the job.
+    """
 
     height: float
     count: int
     spacing: float
+    x: tuple[float, ...] = ()
+    harp: tuple[float, tuple[float, float]] | None = None
+    debond: tuple[tuple[tuple[int, ...], float, float], ...] = ()
+    index: int = 0
 
     def x_positions(self) -> np.ndarray:
         """Horizontal positions of the strands, centred on the girder axis (mm)."""
+        if self.x:
+            return np.asarray(self.x, dtype=float)
         return (np.arange(self.count) - (self.count - 1) / 2.0) * self.spacing
 
 
@@ -90,42 +108,75 @@ class Deck:
 
 @dataclass(frozen=True)
 class LiveLoad:
-    """Live-load moment per girder (including dynamic allowance and distribution), N*mm.
+    """Live load per girder.
 
-    Either a midspan value (distributed as a parabola along the span, which is the shape of
-    the envelope of a uniform load; the result is flagged as such) or values at the tenth
-    points of the design span (11 values, bearing to bearing).
+    Either moments given by the user (a midspan value, distributed along the span as a
+    parabola — the shape of the envelope of a uniform load, flagged as such — or values at the
+    tenth points), already including dynamic allowance and distribution; or the HL-93 load of
+    AASHTO LRFD 3.6.1 moved over the span, times a distribution factor.
+
+    Attributes:
+        model: "given" or "HL-93".
+        moment_midspan: given midspan moment, N*mm.
+        moments_tenth_points: given moments at the 11 tenth points, N*mm.
+        distribution_factor: live-load distribution factor for moment (HL-93), lanes per girder.
+        distribution_source: where the factor comes from.
+        impact: dynamic load allowance IM on truck and tandem (HL-93).
     """
 
     moment_midspan: float | None
     moments_tenth_points: tuple[float, ...] | None
+    model: str = "given"
+    distribution_factor: float | None = 1.0
+    distribution_source: str = "given"
+    impact: float = 0.33
+    girders: int | None = None  # number of girders, for the AASHTO distribution factor
+    skew_deg: float = 0.0
 
     def moment_at(self, x_from_bearing: np.ndarray, span: float) -> np.ndarray:
-        """Live-load moment at positions measured from the left bearing (N*mm)."""
-        x = np.clip(np.asarray(x_from_bearing, dtype=float), 0.0, span)
+        """Live-load moment per girder at positions measured from the left bearing (N*mm)."""
+        x = np.asarray(x_from_bearing, dtype=float)
+        inside = (x >= 0.0) & (x <= span)
+        xc = np.clip(x, 0.0, span)
+        if self.model == "HL-93":
+            from prestress.loads.hl93 import hl93_envelope
+
+            assert self.distribution_factor is not None
+            env = hl93_envelope(span, xc, impact=self.impact)
+            return np.where(inside, self.distribution_factor * np.asarray(env.M_LL_IM), 0.0)
         if self.moments_tenth_points is not None:
             xs = np.linspace(0.0, span, 11)
-            return np.interp(x, xs, np.asarray(self.moments_tenth_points))
+            return np.where(inside, np.interp(xc, xs, np.asarray(self.moments_tenth_points)), 0.0)
         assert self.moment_midspan is not None
-        return 4.0 * self.moment_midspan * x * (span - x) / span**2
+        return np.where(inside, 4.0 * self.moment_midspan * xc * (span - xc) / span**2, 0.0)
 
 
 @dataclass(frozen=True)
 class Loads:
-    """Loads per girder other than self-weight (N/mm, N*mm).
+    """Loads per girder other than self-weight (N/mm, N, N*mm).
 
     Attributes:
         superimposed_dead: DC on the composite section (barriers, railings), N/mm.
         wearing_surface: DW on the composite section (future wearing surface, utilities), N/mm.
         other_noncomposite: further uniform dead load on the girder alone (e.g. stay-in-place
             forms), N/mm.
-        live: the live-load moment.
+        live: the live load.
+        diaphragms: point loads on the girder alone: (position from the left bearing mm, N).
     """
 
     superimposed_dead: float
     wearing_surface: float
     other_noncomposite: float
     live: LiveLoad
+    diaphragms: tuple[tuple[float, float], ...] = ()
+
+
+@dataclass(frozen=True)
+class Handling:
+    """Lifting the girder out of the bed: lifting points from each end (mm), dynamic factor."""
+
+    lift_point: float
+    dynamic_factor: float
 
 
 @dataclass(frozen=True)
@@ -148,19 +199,24 @@ class TensionLimit:
     coefficient: float
     root_unit: str  # "ksi", "psi" or "MPa"
     cap: float | None  # MPa, or None
+    exponent: float = 0.5  # 0.5: square root (AASHTO, ACI); 2/3 for fctm of EN 1992-1-1
 
     def value(self, strength_mpa: float) -> float:
         """The limit (MPa, positive) for a concrete strength (MPa)."""
         from prestress.units import KSI_MPA
 
         unit_mpa = {"ksi": KSI_MPA, "psi": KSI_MPA / 1000.0, "MPa": 1.0}[self.root_unit]
-        limit = self.coefficient * (strength_mpa / unit_mpa) ** 0.5 * unit_mpa
+        limit = self.coefficient * (strength_mpa / unit_mpa) ** self.exponent * unit_mpa
         return min(limit, self.cap) if self.cap is not None else limit
 
-    def text(self) -> str:
-        """The limit's formula in words, e.g. '0.24√f (f in ksi)'."""
-        cap = "" if self.cap is None else " with a cap"
-        return f"{self.coefficient:g}√f ({self.root_unit}){cap}"
+    def text(self, sym: str = "f") -> str:
+        """The limit's formula in words, e.g. "0.24√f'ci (ksi)"."""
+        cap = "" if self.cap is None else " ≤ cap"
+        if abs(self.exponent - 0.5) < 1e-12:
+            core = f"{self.coefficient:g}√{sym}"
+        else:
+            core = f"{self.coefficient:g} {sym}^{self.exponent:.4g}"
+        return f"{core} ({self.root_unit}){cap}"
 
 
 @dataclass(frozen=True)
@@ -174,8 +230,15 @@ class FiberLimit:
 #: The fibers checked: girder bottom, girder top and (on the composite section) deck top.
 FIBERS = ("girder_bottom", "girder_top", "deck_top")
 
-#: The stages/cases of the first calculation path, in order.
-STAGES = ("transfer", "service_permanent", "service_i", "service_iii")
+#: The stages (and service cases) a limit set may give limits for, in time order.
+STAGES = (
+    "transfer",
+    "handling",
+    "deck_placement",
+    "service_permanent",
+    "service_i",
+    "service_iii",
+)
 
 
 @dataclass(frozen=True)
@@ -235,6 +298,9 @@ class Job:
     library_paths: tuple[str, ...] = field(default_factory=tuple)
     loss_basis: str = "gross"  # "gross" or "transformed": sections the stresses are computed on
     spacing: float | None = None
+    layout: Layout | None = None
+    handling: Handling | None = None
+    user_stations: tuple[tuple[str, float], ...] = ()  # (name, x from the left end, mm)
 
     @property
     def bearing_offset(self) -> float:
@@ -253,5 +319,7 @@ class Job:
 
     @property
     def y_ps(self) -> float:
-        """Height of the centroid of the prestressing steel above the girder bottom (mm)."""
+        """Height of the centroid of all strands at midlength (mm above the girder bottom)."""
+        if self.layout is not None:
+            return float(self.layout.cgs_all(np.array([self.length / 2.0]))[0])
         return sum(r.count * r.height for r in self.rows) / self.strand_count

@@ -82,7 +82,9 @@ def hand_calculation() -> dict[str, float]:
     _Ac, ybc, Ic = assemble([(A, yb, I), deck])
     # non-composite dead load: deck 8 in (incl. 0.5 in sacrificial) × 96 in and haunch 1.5 × 42
     wd = 0.150 * (8 / 12 * 96 / 12) + 0.150 * (1.5 / 12 * 42 / 12)
-    M_nc = (w + wd) * S**2 / 8 * 12
+    # girder on its bearings, 1 ft from each end: M(L/2) = w L²/8 − w L a / 2 (overhangs)
+    # deck on the span: wd S² / 8
+    M_nc = (w * (L**2 / 8 - L * 1.0 / 2) + wd * S**2 / 8) * 12
     M_c = (0.25 + 0.20) * S**2 / 8 * 12 + 1150 * 12  # SDL + DW, plus live (Service I)
     s_bot = -Pe / A - Pe * e / Sb + M_nc / Sb + M_c * ybc / Ic
     s_top = -Pe / A + Pe * e / St - M_nc / St - M_c * (54 - ybc) / Ic
@@ -119,7 +121,7 @@ def test_json_layout(us_json: dict) -> None:
     assert us_json["sign_convention"].startswith("tension +")
     assert "licensed engineer" in us_json["caution"]
     names = [s["name"] for s in us_json["stages"]]
-    assert names == ["transfer", "service_permanent", "service_i", "service_iii"]
+    assert names == ["transfer", "deck_placement", "service_permanent", "service_i", "service_iii"]
     for stage in us_json["stages"]:
         assert isinstance(stage["ok"], bool)
         for st in stage["stations"]:
@@ -128,9 +130,12 @@ def test_json_layout(us_json: dict) -> None:
                 assert set(fiber["stress"]) == {"value", "unit"}
                 assert fiber["stress"]["unit"] == "ksi"
                 assert isinstance(fiber["ok"], bool)
-    service = us_json["stages"][2]["stations"]
-    assert len(service) == 11  # tenth points of the design span
-    assert set(service[5]["fibers"]) == {"girder_bottom", "girder_top", "deck_top"}
+    service = {s["name"]: s for s in us_json["stages"][3]["stations"]}
+    tenths = ["left bearing", *[f"0.{i} span" for i in (1, 2, 3, 4, 6, 7, 8, 9)], "midspan",
+              "right bearing"]
+    assert set(tenths) <= set(service)  # tenth points of the design span
+    assert {"left lt", "right lt"} <= set(service)  # transfer-length points
+    assert set(service["midspan"]["fibers"]) == {"girder_bottom", "girder_top", "deck_top"}
 
 
 def test_stresses_match_hand_calculation(us_json: dict) -> None:
@@ -146,12 +151,12 @@ def test_stresses_match_hand_calculation(us_json: dict) -> None:
     assert comps["creep"] + comps["shrinkage"] + comps["relaxation"] == pytest.approx(h["lt"])
     assert us_json["losses"]["effective_stress"]["value"] == pytest.approx(h["fpe"], rel=1e-8)
     transfer = {s["name"]: s for s in us_json["stages"][0]["stations"]}
-    mid = transfer["midlength"]["fibers"]
+    mid = transfer["midspan"]["fibers"]
     assert mid["girder_top"]["stress"]["value"] == pytest.approx(h["t_mid_top"], rel=1e-7)
     assert mid["girder_bottom"]["stress"]["value"] == pytest.approx(h["t_mid_bot"], rel=1e-7)
     left = transfer["left lt"]["fibers"]
     assert left["girder_top"]["stress"]["value"] == pytest.approx(h["t_lt_top"], rel=1e-7)
-    service_i = us_json["stages"][2]["stations"][5]["fibers"]  # midspan
+    service_i = {s["name"]: s for s in us_json["stages"][3]["stations"]}["midspan"]["fibers"]
     assert service_i["girder_bottom"]["stress"]["value"] == pytest.approx(h["s_bot"], rel=1e-7)
     assert service_i["girder_top"]["stress"]["value"] == pytest.approx(h["s_top"], rel=1e-7)
     assert service_i["deck_top"]["stress"]["value"] == pytest.approx(h["s_deck"], rel=1e-7)
@@ -163,7 +168,9 @@ def test_limits_from_the_limit_file(us_json: dict) -> None:
     assert f["compression_limit"]["value"] == pytest.approx(-3.575)
     assert f["tension_limit"]["value"] == pytest.approx(0.24 * math.sqrt(5.5))
     # Service III: 0.19 √7 = 0.5027 ksi ≤ 0.6 ksi cap
-    f = us_json["stages"][3]["stations"][5]["fibers"]["girder_bottom"]
+    f = {s["name"]: s for s in us_json["stages"][4]["stations"]}["midspan"]["fibers"][
+        "girder_bottom"
+    ]
     assert f["tension_limit"]["value"] == pytest.approx(0.19 * math.sqrt(7.0))
 
 

@@ -36,9 +36,9 @@ def fmt(v: float | None, system: str, role: str, digits: int = 3) -> str:
     if v is None:
         return "—"
     x = value(v, system, role)
-    if x == 0:
-        return "0"
     mag = abs(x)
+    if mag < 0.5 * 10**-digits:
+        return "0"
     if mag >= 1e6:
         return f"{x:.4g}"
     if mag >= 1000:

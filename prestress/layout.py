@@ -1,0 +1,243 @@
+"""Pretensioned strand layouts: straight, harped and debonded strands along the girder.
+
+A layout is a set of :class:`StrandSet` objects, each a group of strands sharing one path
+and one bond length: a straight row, the harped part of a row, or the strands of a row that
+are debonded over a given length at each end. Engine level: mm, mm^2; positions x along
+the girder from its left end; heights y above the girder bottom.
+
+- Harped (draped) strands run straight from their end height to their height between the
+  hold-down points; their height varies linearly in between (the usual layout).
+- The force of each strand builds up linearly over the transfer length from the end of its
+  debonded length (AASHTO LRFD 9th Ed. (2020) 5.9.4.3.1; 5.9.4.3.3 for debonded strands).
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass, field
+
+import numpy as np
+from numpy.typing import ArrayLike, NDArray
+
+
+@dataclass(frozen=True)
+class StrandSet:
+    """Strands sharing a path and a bond length.
+
+    Attributes:
+        label: what a reviewer calls the group, e.g. "row 1, debonded 6 ft".
+        row: index of the job's strand row it belongs to.
+        x: horizontal positions of the strands across the section (mm, centred on the axis).
+        area: area of one strand (mm^2).
+        y_mid: height between the hold-down points, or everywhere for straight strands (mm).
+        y_end: height at the girder ends for harped strands (mm), else None.
+        hold_downs: positions of the two hold-down points from the left end (mm), else None.
+        debond_left: debonded (shielded) length from the left end (mm).
+        debond_right: debonded length from the right end (mm).
+    """
+
+    label: str
+    row: int
+    x: tuple[float, ...]
+    area: float
+    y_mid: float
+    y_end: float | None = None
+    hold_downs: tuple[float, float] | None = None
+    debond_left: float = 0.0
+    debond_right: float = 0.0
+
+    @property
+    def count(self) -> int:
+        """Number of strands."""
+        return len(self.x)
+
+    @property
+    def total_area(self) -> float:
+        """Area of all strands of the set (mm^2)."""
+        return self.count * self.area
+
+    @property
+    def harped(self) -> bool:
+        """Whether the set is harped."""
+        return self.y_end is not None
+
+    @property
+    def debonded(self) -> bool:
+        """Whether the set is debonded at either end."""
+        return self.debond_left > 0 or self.debond_right > 0
+
+    def height(self, x: ArrayLike, length: float) -> NDArray[np.float64]:
+        """Height of the set's strands at positions x (mm), for a girder of the given length."""
+        xs = np.asarray(x, dtype=float)
+        if self.y_end is None or self.hold_downs is None:
+            return np.full_like(xs, self.y_mid)
+        h1, h2 = self.hold_downs
+        y = np.full_like(xs, self.y_mid)
+        left = xs < h1
+        right = xs > h2
+        y[left] = self.y_end + (self.y_mid - self.y_end) * np.clip(xs[left], 0, None) / h1
+        y[right] = self.y_end + (self.y_mid - self.y_end) * np.clip(length - xs[right], 0, None) / (
+            length - h2
+        )
+        return y
+
+    def developed(self, x: ArrayLike, length: float, transfer_length: float) -> NDArray[np.float64]:
+        """Share of the full force developed at x (0 to 1).
+
+        Linear over the transfer length from the end of the debonded length at each end
+        (AASHTO LRFD 9th Ed. (2020) 5.9.4.3.1 and 5.9.4.3.3).
+        """
+        xs = np.asarray(x, dtype=float)
+        a = (xs - self.debond_left) / transfer_length
+        b = (length - self.debond_right - xs) / transfer_length
+        return np.clip(np.minimum(a, b), 0.0, 1.0)
+
+
+@dataclass(frozen=True)
+class Layout:
+    """A pretensioned layout on a girder of a given length (mm)."""
+
+    sets: tuple[StrandSet, ...]
+    length: float
+    transfer_length: float
+    rules: dict[str, float] = field(default_factory=dict)
+
+    @property
+    def total_area(self) -> float:
+        """Total area of prestressing steel (mm^2)."""
+        return sum(s.total_area for s in self.sets)
+
+    @property
+    def count(self) -> int:
+        """Total number of strands."""
+        return sum(s.count for s in self.sets)
+
+    def effective_area(self, x: ArrayLike) -> NDArray[np.float64]:
+        """Developed steel area at x (mm^2): Σ area × developed share."""
+        xs = np.asarray(x, dtype=float)
+        out = np.zeros_like(xs)
+        for s in self.sets:
+            out += s.total_area * s.developed(xs, self.length, self.transfer_length)
+        return out
+
+    def cgs(self, x: ArrayLike) -> NDArray[np.float64]:
+        """Height of the centroid of the developed prestress force at x (mm).
+
+        Where nothing is developed (the very ends), the centroid of all strands is returned.
+        """
+        xs = np.asarray(x, dtype=float)
+        num = np.zeros_like(xs)
+        den = np.zeros_like(xs)
+        num_all = np.zeros_like(xs)
+        for s in self.sets:
+            y = s.height(xs, self.length)
+            w = s.total_area * s.developed(xs, self.length, self.transfer_length)
+            num += w * y
+            den += w
+            num_all += s.total_area * y
+        with np.errstate(invalid="ignore", divide="ignore"):
+            return np.where(den > 0, num / np.where(den > 0, den, 1.0), num_all / self.total_area)
+
+    def cgs_all(self, x: ArrayLike) -> NDArray[np.float64]:
+        """Height of the centroid of all strands at x, bonded or not (mm)."""
+        xs = np.asarray(x, dtype=float)
+        num = np.zeros_like(xs)
+        for s in self.sets:
+            num += s.total_area * s.height(xs, self.length)
+        return num / self.total_area
+
+    def key_positions(self) -> list[tuple[str, float]]:
+        """Named positions along the girder (mm from the left end), sorted.
+
+        Hold-down points, the ends of debonding and the ends of their transfer lengths.
+        """
+        out: list[tuple[str, float]] = []
+        lt, L = self.transfer_length, self.length
+        for s in self.sets:
+            if s.hold_downs is not None:
+                out += [("hold-down", s.hold_downs[0]), ("hold-down", s.hold_downs[1])]
+            for d, side in ((s.debond_left, "left"), (s.debond_right, "right")):
+                if d > 0:
+                    x0 = d if side == "left" else L - d
+                    x1 = d + lt if side == "left" else L - d - lt
+                    out += [("debond end", x0), ("debond end + lt", x1)]
+        return sorted(out, key=lambda p: p[1])
+
+    def all_strand_positions(self, x: float) -> list[tuple[float, float]]:
+        """(x across, y) of every strand at a position along the girder (mm)."""
+        pts = []
+        for s in self.sets:
+            y = float(s.height(np.array([x]), self.length)[0])
+            pts += [(xi, y) for xi in s.x]
+        return pts
+
+
+# ------------------------------------------------------------------------------------------
+# Detailing rules for debonded strands (reported as warnings)
+
+#: Default limits of AASHTO LRFD 9th Ed. (2020) 5.9.4.3.3 (values from memory; the job may
+#: change them under [strands.detailing]).
+DEBOND_RULES = {
+    "max_share_total": 0.25,
+    "max_share_row": 0.40,
+    "max_terminations_share": 0.40,
+    "max_terminations_count": 4,
+}
+
+RULE_CLAUSE = "AASHTO LRFD 9th Ed. (2020) 5.9.4.3.3 (limits from memory)"
+
+
+def debonding_warnings(layout: Layout, rows: list[tuple[float, ...]]) -> list[str]:
+    """Warnings a reviewer would raise about the debonding, each naming its clause.
+
+    Args:
+        layout: the layout.
+        rows: the strand x positions of each job row (to find the outer positions).
+    """
+    rules = {**DEBOND_RULES, **layout.rules}
+    total = layout.count
+    deb = [s for s in layout.sets if s.debonded]
+    n_deb = sum(s.count for s in deb)
+    out = []
+    if total and n_deb / total > rules["max_share_total"] + 1e-12:
+        out.append(
+            f"{n_deb} of {total} strands debonded ({100 * n_deb / total:.0f} %), more than "
+            f"{100 * rules['max_share_total']:.0f} % of the total ({RULE_CLAUSE})"
+        )
+    for i, xs in enumerate(rows):
+        in_row = sum(s.count for s in deb if s.row == i)
+        if xs and in_row / len(xs) > rules["max_share_row"] + 1e-12:
+            out.append(
+                f"row {i + 1}: {in_row} of {len(xs)} strands debonded, more than "
+                f"{100 * rules['max_share_row']:.0f} % of the row ({RULE_CLAUSE})"
+            )
+        outer = {min(xs), max(xs)} if xs else set()
+        if any(x in outer for s in deb if s.row == i for x in s.x):
+            out.append(
+                f"row {i + 1}: a debonded strand in an outer position of the row; the "
+                f"exterior strands of each row should be fully bonded ({RULE_CLAUSE})"
+            )
+    for s in deb:
+        if abs(s.debond_left - s.debond_right) > 1e-6:
+            out.append(
+                f"{s.label}: debonded lengths differ at the two ends; debonding should be "
+                f"symmetric about the girder's centreline ({RULE_CLAUSE})"
+            )
+        xs = sorted(s.x)
+        if any(abs(a + b) > 1e-6 for a, b in zip(xs, reversed(xs), strict=True)):
+            out.append(
+                f"{s.label}: debonded strands are not placed symmetrically about the "
+                f"vertical axis ({RULE_CLAUSE})"
+            )
+    ends: dict[float, int] = {}
+    for s in deb:
+        ends[round(s.debond_left, 3)] = ends.get(round(s.debond_left, 3), 0) + s.count
+    limit = max(rules["max_terminations_count"], rules["max_terminations_share"] * n_deb)
+    for length, n in sorted(ends.items()):
+        if length > 0 and n > limit + 1e-12:
+            out.append(
+                f"{n} debonded strands terminate at {length / 304.8:.2f} ft from the end, "
+                f"more than max({rules['max_terminations_count']:g}, "
+                f"{100 * rules['max_terminations_share']:.0f} % of the debonded strands) "
+                f"({RULE_CLAUSE})"
+            )
+    return out

@@ -1,0 +1,385 @@
+"""Staged fiber stresses at stations along the girder, and the permissible zone of the cgs.
+
+For each stage of the girder's life the prestress force of that time (from the loss engine)
+and the moments of the loads present act on the section that carries them: prestress, girder
+self-weight, deck, haunch and diaphragms on the girder alone; superimposed dead load and live
+load on the composite section. Increments are superposed, so each acts on the section that
+carried it. Engine level: N, mm, MPa, N*mm; tension +, compression −; eccentricity positive
+below the centroid; sagging moments positive.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+from typing import TYPE_CHECKING
+
+import numpy as np
+
+from prestress import actions
+from prestress.model import FIBERS
+
+if TYPE_CHECKING:
+    from prestress.analysis import Girder
+    from prestress.losses import LossBreakdown
+    from prestress.sections.composite import AssembledSection
+
+
+def fiber_stress(sec: AssembledSection, fiber: str, P: float, e: float, M: float) -> float:
+    """Stress at a fiber of a section (MPa): −P/A − (M − P e)(y − yb)/I, times its modular ratio.
+
+    Args:
+        sec: the section carrying the increment.
+        fiber: fiber name.
+        P: prestress force on this section, N (positive; compression in the concrete).
+        e: its eccentricity below this section's centroid, mm.
+        M: applied moment, N*mm (sagging +).
+    """
+    return sec.n_fiber[fiber] * (-P / sec.area - (M - P * e) * sec.c(fiber) / sec.I)
+
+
+# ------------------------------------------------------------------------------------------
+# Stations
+
+
+@dataclass(frozen=True)
+class Station:
+    """A point along the girder: its name(s) and position from the left end (mm)."""
+
+    name: str
+    x: float
+
+
+def stations(girder: Girder) -> list[Station]:
+    """Every station an engineer checks, de-duplicated (within 1 mm) and sorted.
+
+    The ends, the bearings, the transfer-length points, each hold-down, each debond end and
+    the end of its transfer length, the tenth points of the design span and the job's own.
+    """
+    job = girder.job
+    L, lt, a, S = job.length, job.transfer_length, job.bearing_offset, job.span
+    raw: list[tuple[str, float]] = [("left end", 0.0), ("right end", L)]
+    if a > 0:
+        raw += [("left bearing", a), ("right bearing", L - a)]
+    raw += [("left lt", lt), ("right lt", L - lt)]
+    if job.layout is not None:
+        raw += job.layout.key_positions()
+    for i in range(11):
+        if i in (0, 10):
+            name = "left bearing" if i == 0 else "right bearing"
+        else:
+            name = "midspan" if i == 5 else f"{i / 10:.1f} span"
+        raw.append((name, a + S * i / 10.0))
+    raw += list(job.user_stations)
+    merged: list[tuple[list[str], float]] = []
+    for name, x in sorted(raw, key=lambda p: p[1]):
+        x = min(max(x, 0.0), L)
+        if merged and abs(merged[-1][1] - x) <= 1.0:
+            if name not in merged[-1][0]:
+                merged[-1][0].append(name)
+        else:
+            merged.append(([name], x))
+    return [Station(" / ".join(names), x) for names, x in merged]
+
+
+# ------------------------------------------------------------------------------------------
+# Stages
+
+
+@dataclass(frozen=True)
+class StageSpec:
+    """What acts in a stage: prestress of which time, supports, loads, factors, strength."""
+
+    key: str
+    title: str
+    prestress: str  # "transfer", "deck_placement" or "final"
+    support: str  # "ends", "lifting" or "bearings"
+    dead: float  # factor on dead loads
+    live: float  # factor on live load
+    loads: tuple[str, ...]  # of "girder", "deck", "diaphragms", "superimposed", "live"
+    strength: str  # "fci" or "fc"
+    description: str
+
+
+def stage_specs(girder: Girder) -> list[StageSpec]:
+    """The stages of the job, in time order."""
+    job = girder.job
+    specs = [
+        StageSpec(
+            "transfer",
+            "Release in the casting bed",
+            "transfer",
+            "ends",
+            1.0,
+            0.0,
+            ("girder",),
+            "fci",
+            "initial prestress and girder self-weight on the girder length, supported at its ends",
+        )
+    ]
+    if job.handling is not None:
+        h = job.handling
+        specs.append(
+            StageSpec(
+                "handling",
+                "Handling: lifting from the bed",
+                "transfer",
+                "lifting",
+                h.dynamic_factor,
+                0.0,
+                ("girder",),
+                "fci",
+                f"initial prestress and girder self-weight × {h.dynamic_factor:g} "
+                "on the lifting points",
+            )
+        )
+    specs.append(
+        StageSpec(
+            "deck_placement",
+            "Deck placement on the girder alone",
+            "deck_placement",
+            "bearings",
+            1.0,
+            0.0,
+            ("girder", "deck", "diaphragms"),
+            "fc",
+            "prestress at deck placement; girder, deck, haunch and diaphragm "
+            "weights on the girder alone, on its bearings",
+        )
+    )
+    dead_loads = ("girder", "deck", "diaphragms", "superimposed")
+    c_i, c_iii = job.combinations["service_i"], job.combinations["service_iii"]
+    specs += [
+        StageSpec(
+            "service_permanent",
+            "Final service: effective prestress and permanent loads",
+            "final",
+            "bearings",
+            1.0,
+            0.0,
+            dead_loads,
+            "fc",
+            "effective prestress and every permanent load",
+        ),
+        StageSpec(
+            "service_i",
+            "Final service: Service I",
+            "final",
+            "bearings",
+            c_i.dead,
+            c_i.live,
+            (*dead_loads, "live"),
+            "fc",
+            f"effective prestress, permanent loads × {c_i.dead:g}, live load × {c_i.live:g}",
+        ),
+        StageSpec(
+            "service_iii",
+            "Final service: Service III",
+            "final",
+            "bearings",
+            c_iii.dead,
+            c_iii.live,
+            (*dead_loads, "live"),
+            "fc",
+            f"effective prestress, permanent loads × {c_iii.dead:g}, live load × "
+            f"{c_iii.live:g} (tension check)",
+        ),
+    ]
+    return specs
+
+
+def applied_stress(losses: LossBreakdown, when: str) -> tuple[float, str | None]:
+    """Strand stress whose force acts on the analysis section at a time, and a note.
+
+    The note is set when the loss method gives no figure for that time (the final value is
+    then used).
+    """
+    if when == "transfer":
+        return losses.applied_transfer, None
+    if when == "final":
+        return losses.applied_final, None
+    m = next((m for m in losses.milestones if m.key == when), None)
+    if m is None:
+        return losses.applied_final, (
+            f"{losses.method} gives no losses at deck placement; the "
+            "final losses are used for that stage"
+        )
+    shift = losses.applied_transfer - losses.f_pt  # 0 on gross sections; ES on transformed ones
+    return m.stress + shift, None
+
+
+def moments(girder: Girder, spec: StageSpec, x: np.ndarray) -> dict[str, np.ndarray]:
+    """Factored moments of the stage's loads at x from the left end (N*mm), by load."""
+    job = girder.job
+    L, a, S = job.length, job.bearing_offset, job.span
+    xb = x - a
+    w = girder.self_weight
+    out: dict[str, np.ndarray] = {}
+    if "girder" in spec.loads:
+        if spec.support == "ends":
+            out["girder"] = actions.uniform_on_two_supports(w, L, 0.0, L, x)
+        elif spec.support == "lifting":
+            assert job.handling is not None
+            lp = job.handling.lift_point
+            out["girder"] = spec.dead * actions.uniform_on_two_supports(w, L, lp, L - lp, x)
+        else:
+            out["girder"] = spec.dead * actions.uniform_on_two_supports(w, L, a, L - a, x)
+    if "deck" in spec.loads:
+        out["deck"] = spec.dead * actions.uniform_on_span(girder.deck_weight, S, xb)
+    if "diaphragms" in spec.loads and job.loads.diaphragms:
+        m = np.zeros_like(x)
+        for at, P in job.loads.diaphragms:
+            m += actions.point_on_span(P, at, S, xb)
+        out["diaphragms"] = spec.dead * m
+    if "superimposed" in spec.loads:
+        w_c = job.loads.superimposed_dead + job.loads.wearing_surface
+        out["superimposed"] = spec.dead * actions.uniform_on_span(w_c, S, xb)
+    if "live" in spec.loads and spec.live > 0:
+        out["live"] = spec.live * job.loads.live.moment_at(xb, S)
+    return out
+
+
+COMPOSITE_LOADS = ("superimposed", "live")
+
+
+@dataclass(frozen=True)
+class StageStresses:
+    """Raw results of one stage at its stations (arrays over stations)."""
+
+    spec: StageSpec
+    stations: list[Station]
+    x: np.ndarray
+    force: np.ndarray  # N
+    cgs: np.ndarray  # mm above the girder bottom
+    eccentricity: np.ndarray  # mm below the centroid of the girder section used
+    moments: dict[str, np.ndarray]
+    stresses: dict[str, np.ndarray]  # by fiber
+    section: AssembledSection  # the girder-alone section carrying the prestress
+    composite: AssembledSection | None
+    note: str | None
+
+
+def stage_stresses(
+    girder: Girder, losses: LossBreakdown, spec: StageSpec, all_stations: list[Station]
+) -> StageStresses:
+    """Fiber stresses of one stage at its stations (vectorised over the stations)."""
+    job = girder.job
+    if spec.support == "bearings":
+        a = job.bearing_offset
+        sts = [s for s in all_stations if a - 1.0 <= s.x <= job.length - a + 1.0]
+    else:
+        sts = list(all_stations)
+    x = np.array([s.x for s in sts])
+    sec = girder.section_transfer if spec.prestress == "transfer" else girder.section_service
+    assert sec is not None and job.layout is not None
+    comp = girder.section_composite
+    fp, note = applied_stress(losses, spec.prestress)
+    P = fp * job.layout.effective_area(x)
+    cgs = job.layout.cgs(x)
+    e = sec.yb - cgs
+    ms = moments(girder, spec, x)
+    M_nc = sum((m for k, m in ms.items() if k not in COMPOSITE_LOADS), np.zeros_like(x))
+    M_c = sum((m for k, m in ms.items() if k in COMPOSITE_LOADS), np.zeros_like(x))
+    stresses: dict[str, np.ndarray] = {}
+    composite_stage = any(k in COMPOSITE_LOADS for k in spec.loads)
+    for fiber in FIBERS:
+        if fiber == "deck_top":
+            if comp is None or not composite_stage:
+                continue
+            stresses[fiber] = comp.n_fiber[fiber] * (-M_c * comp.c(fiber) / comp.I)
+            continue
+        f = sec.n_fiber[fiber] * (-P / sec.area - (M_nc - P * e) * sec.c(fiber) / sec.I)
+        carrier = comp if comp is not None else sec
+        f = f + carrier.n_fiber[fiber] * (-M_c * carrier.c(fiber) / carrier.I)
+        stresses[fiber] = f
+    return StageStresses(spec, sts, x, P, cgs, e, ms, stresses, sec, comp, note)
+
+
+# ------------------------------------------------------------------------------------------
+# The permissible zone of the cgs
+
+
+@dataclass(frozen=True)
+class ZoneStation:
+    """The permissible band of cgs heights at one station, and the actual cgs.
+
+    The band (mm above the girder bottom) keeps every girder fiber within its limits in
+    every stage.
+
+    Attributes:
+        station: the station.
+        low: lowest permissible cgs height (None: no lower bound).
+        high: highest permissible cgs height (None: no upper bound).
+        cgs: actual height of the cgs.
+        governing_low: "stage fiber" setting the lower bound.
+        governing_high: "stage fiber" setting the upper bound.
+    """
+
+    station: Station
+    low: float | None
+    high: float | None
+    cgs: float
+    governing_low: str
+    governing_high: str
+
+    @property
+    def inside(self) -> bool:
+        """Whether the cgs lies inside the band (and the band is not empty)."""
+        lo = -np.inf if self.low is None else self.low
+        hi = np.inf if self.high is None else self.high
+        return lo <= hi and lo - 1e-6 <= self.cgs <= hi + 1e-6
+
+    @property
+    def margin(self) -> float | None:
+        """Distance from the cgs to the nearer edge (mm; negative outside), None if unbounded."""
+        edges = [
+            v
+            for v in (
+                None if self.low is None else self.cgs - self.low,
+                None if self.high is None else self.high - self.cgs,
+            )
+            if v is not None
+        ]
+        return min(edges) if edges else None
+
+
+def zone_bounds(
+    r: StageStresses, limits: dict[str, tuple[float | None, float | None]]
+) -> list[tuple[float, float, str, str]]:
+    """Bounds on the cgs height at each station of a stage from its girder-fiber limits.
+
+    Each girder fiber's stress is linear in the eccentricity e for the stage's force P:
+    f(e) = f(e0) + n P c / I (e − e0). The limits comp ≤ f ≤ tens bound e, hence the cgs
+    height y = yb − e. Returns (low, high, who sets low, who sets high) per station, with
+    ±inf where unbounded.
+    """
+    sec = r.section
+    out = []
+    for i in range(len(r.x)):
+        lo, hi, who_lo, who_hi = -np.inf, np.inf, "", ""
+        P = r.force[i]
+        for fiber, (comp, tens) in limits.items():
+            if fiber not in r.stresses or fiber == "deck_top":
+                continue
+            k = sec.n_fiber[fiber] * P * sec.c(fiber) / sec.I  # ∂f/∂e
+            f0 = r.stresses[fiber][i]
+            e0 = r.eccentricity[i]
+            if abs(k) < 1e-15:
+                continue
+            for lim in (comp, tens):
+                if lim is None:
+                    continue
+                e_lim = e0 + (lim - f0) / k  # eccentricity at which f = lim
+                y_lim = sec.yb - e_lim
+                # f grows with e when k > 0, i.e. grows as y falls
+                is_comp = lim is comp
+                # feasible side: for compression f ≥ comp; for tension f ≤ tens
+                upper_bound_on_e = (k < 0) if is_comp else (k > 0)
+                tag = f"{r.spec.key} {fiber} {'compression' if is_comp else 'tension'}"
+                if upper_bound_on_e:  # e ≤ e_lim  ⇔  y ≥ y_lim
+                    if y_lim > lo:
+                        lo, who_lo = y_lim, tag
+                else:  # e ≥ e_lim ⇔ y ≤ y_lim
+                    if y_lim < hi:
+                        hi, who_hi = y_lim, tag
+        out.append((lo, hi, who_lo, who_hi))
+    return out
