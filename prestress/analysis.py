@@ -398,9 +398,42 @@ def _limits_of(girder: Girder, key: str) -> dict[str, tuple[float | None, float 
     return out
 
 
+def zone_at(girder: Girder, losses: LossBreakdown, stations_: list) -> tuple[ZoneStation, ...]:
+    """The permissible zone of the cgs at the given stations, from every stage's limits."""
+    from prestress.stages import stage_specs, stage_stresses, zone_bounds
+
+    job = girder.job
+    assert job.layout is not None
+    bounds: dict[float, list[tuple[float, float, str, str]]] = {}
+    for spec in stage_specs(girder):
+        raw = stage_stresses(girder, losses, spec, stations_)
+        for st, b in zip(raw.stations, zone_bounds(raw, _limits_of(girder, spec.key)), strict=True):
+            bounds.setdefault(round(st.x, 3), []).append(b)
+    zone = []
+    cgs = job.layout.cgs(np.array([st.x for st in stations_]))
+    for st, y in zip(stations_, cgs, strict=True):
+        lo, hi, who_lo, who_hi = -np.inf, np.inf, "", ""
+        for b_lo, b_hi, w_lo, w_hi in bounds.get(round(st.x, 3), []):
+            if b_lo > lo:
+                lo, who_lo = b_lo, w_lo
+            if b_hi < hi:
+                hi, who_hi = b_hi, w_hi
+        zone.append(
+            ZoneStation(
+                st,
+                None if lo == -np.inf else float(lo),
+                None if hi == np.inf else float(hi),
+                float(y),
+                who_lo,
+                who_hi,
+            )
+        )
+    return tuple(zone)
+
+
 def run_check(job: Job, *, cli_libraries: tuple[str, ...] = ()) -> CheckResult:
     """Run the whole check of a job: section, losses, stresses per stage, limits, zone."""
-    from prestress.stages import stage_specs, stage_stresses, stations, zone_bounds
+    from prestress.stages import stage_specs, stage_stresses, stations
 
     girder = resolve_girder(job, cli_libraries=cli_libraries)
     job = girder.job
@@ -408,7 +441,6 @@ def run_check(job: Job, *, cli_libraries: tuple[str, ...] = ()) -> CheckResult:
     all_st = stations(girder)
     gc = job.girder_concrete
     results = []
-    bounds: dict[float, list[tuple[float, float, str, str]]] = {}
     notes = list(girder.notices + losses.notes)
     for spec in stage_specs(girder):
         raw = stage_stresses(girder, losses, spec, all_st)
@@ -472,28 +504,7 @@ def run_check(job: Job, *, cli_libraries: tuple[str, ...] = ()) -> CheckResult:
                 notes=tuple(stage_notes),
             )
         )
-        for st, b in zip(raw.stations, zone_bounds(raw, _limits_of(girder, spec.key)), strict=True):
-            bounds.setdefault(round(st.x, 3), []).append(b)
-    zone = []
-    for st in all_st:
-        bs = bounds.get(round(st.x, 3), [])
-        lo, hi, who_lo, who_hi = -np.inf, np.inf, "", ""
-        for b_lo, b_hi, w_lo, w_hi in bs:
-            if b_lo > lo:
-                lo, who_lo = b_lo, w_lo
-            if b_hi < hi:
-                hi, who_hi = b_hi, w_hi
-        assert job.layout is not None
-        zone.append(
-            ZoneStation(
-                st,
-                None if lo == -np.inf else float(lo),
-                None if hi == np.inf else float(hi),
-                float(job.layout.cgs(np.array([st.x]))[0]),
-                who_lo,
-                who_hi,
-            )
-        )
+    zone = zone_at(girder, losses, all_st)
     if job.layout is not None:
         from prestress.layout import debonding_warnings
 

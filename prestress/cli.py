@@ -56,6 +56,24 @@ def build_parser() -> argparse.ArgumentParser:
         help="write the results as JSON to FILE, or to standard output",
     )
     p.add_argument("--force", action="store_true", help="replace an existing output file")
+    p.add_argument(
+        "--stage",
+        metavar="KEYS",
+        help="show only these stages (comma-separated: transfer, handling, "
+        "deck_placement, service_permanent, service_i, service_iii); the verdict and "
+        "exit status still cover every stage",
+    )
+    p.add_argument(
+        "--stations",
+        metavar="NAMES",
+        help="show only stations whose name contains one of these (comma-separated, "
+        'e.g. "midspan,lt,hold-down")',
+    )
+    _add_common(p)
+
+    p = sub.add_parser("zone", help="the permissible zone of the cgs along the girder")
+    p.add_argument("job", help="the job file (TOML)")
+    p.add_argument("--json", action="store_true", help="JSON on standard output")
     _add_common(p)
 
     p = sub.add_parser("losses", help="prestress losses per stage, by one method or all")
@@ -174,10 +192,62 @@ def cmd_check(args: argparse.Namespace) -> int:
             inputs = [Path(args.job)]
             _write_output(args.json, text, inputs=inputs, force=args.force)
     if args.json != "-":
+        from prestress.model import STAGES
         from prestress.present.console import make_console, render
 
-        render(result, make_console(), system)
+        stages = None
+        if args.stage:
+            stages = tuple(k.strip() for k in args.stage.split(",") if k.strip())
+            bad = [k for k in stages if k not in STAGES]
+            if bad:
+                raise InputError(
+                    "stage keys among " + ", ".join(STAGES),
+                    file="command line",
+                    field="--stage",
+                    got=repr(bad[0]),
+                )
+        stations = None
+        if args.stations:
+            stations = tuple(w.strip() for w in args.stations.split(",") if w.strip())
+        render(result, make_console(), system, stages=stages, stations=stations)
     return EXIT_OK if result.ok else EXIT_FAIL
+
+
+def cmd_zone(args: argparse.Namespace) -> int:
+    """``prestress zone JOB``: elevation with the zone band and the cgs; stations outside."""
+    import json
+
+    from prestress.analysis import check_file
+    from prestress.present import zone_view
+    from prestress.present.common import CAUTION
+    from prestress.present.console import make_console
+    from prestress.present.jsonout import to_dict
+
+    result = check_file(args.job, cli_libraries=tuple(args.library))
+    system = args.units or result.girder.job.units
+    outside = [z for z in result.zone if not z.inside]
+    if args.json:
+        data = to_dict(result, system)
+        out = {k: data[k] for k in ("schema", "job", "units", "zone", "caution")}
+        sys.stdout.write(json.dumps(out, indent=2, ensure_ascii=False, allow_nan=False) + "\n")
+        return EXIT_OK if not outside else EXIT_FAIL
+    console = make_console()
+    width = max(40, min(160, console.width - 18))
+    console.print(
+        f"[bold]prestress zone[/] — {result.girder.job.title} "
+        f"({result.girder.section_name}, {result.girder.job.file})"
+    )
+    console.print(zone_view.elevation(result, zone_view.dense_profile(result, width), width))
+    console.print(zone_view.legend(system, result))
+    console.print(zone_view.zone_table(result, system))
+    if outside:
+        console.print(
+            "[bold red]The cgs leaves the zone at:[/] " + ", ".join(z.station.name for z in outside)
+        )
+    else:
+        console.print("[green]The cgs lies inside the zone at every station.[/]")
+    console.print(f"[yellow]{CAUTION}[/]")
+    return EXIT_OK if not outside else EXIT_FAIL
 
 
 def cmd_losses(args: argparse.Namespace) -> int:
@@ -417,6 +487,7 @@ def cmd_examples(args: argparse.Namespace) -> int:
 COMMANDS = {
     "check": cmd_check,
     "losses": cmd_losses,
+    "zone": cmd_zone,
     "sections": cmd_sections,
     "section": cmd_section,
     "examples": cmd_examples,

@@ -342,6 +342,17 @@ class ZoneStation:
         return min(edges) if edges else None
 
 
+#: Short stage names for messages.
+STAGE_SHORT = {
+    "transfer": "release",
+    "handling": "handling",
+    "deck_placement": "deck placement",
+    "service_permanent": "permanent",
+    "service_i": "Service I",
+    "service_iii": "Service III",
+}
+
+
 def zone_bounds(
     r: StageStresses, limits: dict[str, tuple[float | None, float | None]]
 ) -> list[tuple[float, float, str, str]]:
@@ -374,7 +385,10 @@ def zone_bounds(
                 is_comp = lim is comp
                 # feasible side: for compression f ≥ comp; for tension f ≤ tens
                 upper_bound_on_e = (k < 0) if is_comp else (k > 0)
-                tag = f"{r.spec.key} {fiber} {'compression' if is_comp else 'tension'}"
+                tag = (
+                    f"{STAGE_SHORT.get(r.spec.key, r.spec.key)} {fiber.replace('girder_', '')} "
+                    f"{'compression' if is_comp else 'tension'}"
+                )
                 if upper_bound_on_e:  # e ≤ e_lim  ⇔  y ≥ y_lim
                     if y_lim > lo:
                         lo, who_lo = y_lim, tag

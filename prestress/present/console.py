@@ -281,21 +281,47 @@ def stage_table(stage: StageResult, number: int, system: str) -> Group:
 
 
 def summary(result: CheckResult) -> Table:
-    """Governing station and utilisation per stage."""
-    t = Table(title="Summary", title_justify="left", title_style="bold", box=box.SIMPLE_HEAD)
+    """Governing station and utilisation per stage and fiber."""
+    t = Table(
+        title="Summary: governing station per stage and fiber",
+        title_justify="left",
+        title_style="bold",
+        box=box.SIMPLE_HEAD,
+    )
     t.add_column("Stage")
-    t.add_column("Governing station")
     t.add_column("Fiber")
+    t.add_column("Governing station")
     t.add_column("Use", justify="right")
     t.add_column("")
     for i, s in enumerate(result.stages, 1):
-        gov = s.governing()
-        if gov is None:
-            t.add_row(f"{i}. {s.title}", "—", "—", "—", PASS if s.ok else FAIL)
-            continue
-        st, fiber, u = gov
-        use = ">1" if u == float("inf") else f"{u:.2f}"
-        t.add_row(f"{i}. {s.title}", st.name, FIBER_NAMES[fiber], use, PASS if s.ok else FAIL)
+        fibers = [
+            f
+            for f in ("girder_bottom", "girder_top", "deck_top")
+            if any(f in st.fibers for st in s.stations)
+        ]
+        first = True
+        for fiber in fibers:
+            best = None
+            for st in s.stations:
+                fr = st.fibers.get(fiber)
+                if fr is None:
+                    continue
+                u = (
+                    fr.utilisation
+                    if fr.utilisation is not None
+                    else (float("inf") if not fr.ok else None)
+                )
+                if u is not None and (best is None or u > best[1]):
+                    best = (st, u, fr.ok)
+            title = f"{i}. {s.title}" if first else ""
+            first = False
+            if best is None:
+                t.add_row(title, FIBER_NAMES[fiber], "—", "not checked", "")
+                continue
+            st, u, ok = best
+            use = ">1" if u == float("inf") else f"{u:.2f}"
+            t.add_row(title, FIBER_NAMES[fiber], st.name, use, PASS if ok else FAIL)
+        t.add_section()
     return t
 
 
@@ -332,13 +358,31 @@ def make_console() -> Console:
     return Console(width=max(60, width))
 
 
-def render(result: CheckResult, console: Console, system: str | None = None) -> None:
-    """Print the whole check."""
+def render(
+    result: CheckResult,
+    console: Console,
+    system: str | None = None,
+    *,
+    stages: tuple[str, ...] | None = None,
+    stations: tuple[str, ...] | None = None,
+) -> None:
+    """Print the whole check (``stages``/``stations`` focus the stage tables)."""
     system = system or result.girder.job.units
     console.print(header(result, system))
     console.print(properties(result, system))
     console.print(losses(result, system))
     for i, stage in enumerate(result.stages, 1):
+        if stages is not None and stage.key not in stages:
+            continue
+        if stations is not None:
+            from dataclasses import replace
+
+            keep = tuple(
+                st for st in stage.stations if any(w.lower() in st.name.lower() for w in stations)
+            )
+            stage = replace(stage, stations=keep)
+            if not keep:
+                continue
         console.print(stage_table(stage, i, system))
     console.print(summary(result))
     for n in result.notes:

@@ -36,6 +36,7 @@ def _station(s: StationResult, system: str) -> dict[str, Any]:
         "eccentricity": quantity(s.eccentricity, system, "dimension"),
         "moments": {k: quantity(v, system, "moment") for k, v in s.moments.items()},
         "moment": quantity(s.moment, system, "moment"),
+        "cgs_height": quantity(s.cgs, system, "dimension"),
         "fibers": {k: _fiber(f, system) for k, f in s.fibers.items()},
         "ok": s.ok,
     }
@@ -130,6 +131,20 @@ def to_dict(result: CheckResult, system: str | None = None) -> dict[str, Any]:
         },
         "losses": losses,
         "stages": stages,
+        "zone": [
+            {
+                "station": z.station.name,
+                "position_from_girder_end": quantity(z.station.x, system, "position"),
+                "lowest_cgs": quantity(z.low, system, "dimension"),
+                "highest_cgs": quantity(z.high, system, "dimension"),
+                "cgs": quantity(z.cgs, system, "dimension"),
+                "inside": z.inside,
+                "margin": quantity(z.margin, system, "dimension"),
+                "lower_bound_set_by": z.governing_low or None,
+                "upper_bound_set_by": z.governing_high or None,
+            }
+            for z in result.zone
+        ],
         "notes": list(result.notes),
         "ok": result.ok,
         "caution": CAUTION,
