@@ -225,8 +225,10 @@ def _check_strands_inside(job: Job, poly) -> None:  # type: ignore[no-untyped-de
     from shapely.geometry import Point
 
     for i, row in enumerate(job.rows):
-        heights = [row.height] + ([row.harp[0]] if row.harp is not None else [])
-        for x, y in ((x, y) for x in row.x_positions() for y in heights):
+        points = [(float(x), row.height) for x in row.x_positions()]
+        if row.harp is not None:  # at the ends: one column on the axis
+            points += [(0.0, row.harp[0] - k * row.harp[2]) for k in range(row.count)]
+        for x, y in points:
             p = Point(float(x), y)
             if (
                 not poly.contains(p)

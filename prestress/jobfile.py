@@ -353,7 +353,13 @@ def _row(r: Table, index: int, length: float) -> StrandRow:
     h = r.table("harp", required=False)
     if h is not None:
         end_height = h.quantity("end_height", "length", positive=True)
-        harp = (end_height, _hold_downs(h, length))
+        end_spacing = h.quantity("end_spacing", "length", 2.0 * INCH_MM, positive=True)
+        if end_height - (len(xs) - 1) * end_spacing <= 0:
+            raise h.error(
+                "end_height",
+                "room below it for the row's strands stacked at end_spacing at the girder ends",
+            )
+        harp = (end_height, _hold_downs(h, length), end_spacing)
         h.done()
     debonds = []
     for d in r.tables("debond", required=False):
@@ -501,8 +507,21 @@ def build_layout(
         deb = {k for idx, _l, _r in row.debond for k in idx}
         bonded = tuple(x for k, x in enumerate(row.x) if k not in deb)
         if row.harp is not None:
-            end, hd = row.harp
-            sets.append(StrandSet(f"{label}, harped", i, row.x, area, row.height, end, hd))
+            end, hd, step = row.harp
+            # at the ends the harped strands stand in one vertical column on the girder axis,
+            # the highest at end_height (common practice for I-girder and bulb-tee webs)
+            for k, x in enumerate(sorted(row.x, key=abs)):
+                sets.append(
+                    StrandSet(
+                        f"{label}, harped strand {k + 1}",
+                        i,
+                        (x,),
+                        area,
+                        row.height,
+                        end - k * step,
+                        hd,
+                    )
+                )
             continue
         if bonded:
             sets.append(StrandSet(label, i, bonded, area, row.height))

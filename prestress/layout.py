@@ -152,15 +152,19 @@ class Layout:
         """
         out: list[tuple[str, float]] = []
         lt, L = self.transfer_length, self.length
+        lengths = sorted(
+            {round(d, 3) for s in self.sets for d in (s.debond_left, s.debond_right) if d > 0}
+        )
         for s in self.sets:
             if s.hold_downs is not None:
                 out += [("hold-down", s.hold_downs[0]), ("hold-down", s.hold_downs[1])]
             for d, side in ((s.debond_left, "left"), (s.debond_right, "right")):
                 if d > 0:
+                    k = lengths.index(round(d, 3)) + 1
                     x0 = d if side == "left" else L - d
                     x1 = d + lt if side == "left" else L - d - lt
-                    out += [("debond end", x0), ("debond end + lt", x1)]
-        return sorted(out, key=lambda p: p[1])
+                    out += [(f"debond end {k}", x0), (f"debond end {k} + lt", x1)]
+        return sorted(set(out), key=lambda p: (p[1], p[0]))
 
     def all_strand_positions(self, x: float) -> list[tuple[float, float]]:
         """(x across, y) of every strand at a position along the girder (mm)."""

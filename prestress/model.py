@@ -59,7 +59,9 @@ class StrandRow:
         count: number of strands.
         spacing: spacing when the row was given by count and spacing (0 otherwise).
         x: horizontal positions of the strands (mm, centred on the girder axis).
-        harp: (end height, (left, right) hold-down positions) when the row is harped.
+        harp: (end height of the highest strand, (left, right) hold-down positions, vertical
+            spacing of the strands at the ends) when the row is harped; at the ends its strands
+            stand in one column on the girder axis.
         debond: debonded groups: (strand indices in the row, left length, right length).
         index: the row's index in the job.
     """
@@ -68,7 +70,7 @@ class StrandRow:
     count: int
     spacing: float
     x: tuple[float, ...] = ()
-    harp: tuple[float, tuple[float, float]] | None = None
+    harp: tuple[float, tuple[float, float], float] | None = None
     debond: tuple[tuple[tuple[int, ...], float, float], ...] = ()
     index: int = 0
 

@@ -53,7 +53,13 @@ def elevation(
     if job.layout is not None:
         for name, x in job.layout.key_positions():
             j = min(n - 1, max(0, round(x / L * (n - 1))))
-            marks[j] = "▼" if name == "hold-down" else ("┆" if name == "debond end" else marks[j])
+            marks[j] = (
+                "▼"
+                if name == "hold-down"
+                else (
+                    "┆" if name.startswith("debond end") and not name.endswith("lt") else marks[j]
+                )
+            )
     text.append(" " + "".join(marks) + "\n", style="cyan")
     text.append("┌" + "─" * n + "┐ girder top\n", style="dim")
     for r in range(rows):
