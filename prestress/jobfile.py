@@ -752,7 +752,16 @@ def load_job(path: str | Path) -> Job:
 
     lim = top.table("limits")
     assert lim is not None
-    if lim.has("file"):
+    if lim.has("set"):
+        from prestress.paths import shipped_examples_dir
+
+        folder = shipped_examples_dir() / "limits"
+        names = sorted(p.stem for p in folder.glob("*.toml"))
+        name = lim.string("set", choices=tuple(names))
+        lim.done()
+        lpath = folder / f"{name}.toml"
+        limits = read_limits(Table(read_toml(lpath), file=str(lpath)))
+    elif lim.has("file"):
         ref = lim.string("file")
         lim.done()
         lpath = (path.parent / ref) if not Path(ref).is_absolute() else Path(ref)

@@ -19,7 +19,7 @@ from prestress.stages import fiber_stress, stage_specs, stage_stresses, stations
 from tests.conftest import EXAMPLES, US_EXAMPLE
 
 
-def polygon_moments(poly) -> tuple[float, float, float]:  # noqa: ANN001
+def polygon_moments(poly) -> tuple[float, float, float]:
     """Exact A, ∫y dA, ∫y² dA of a polygon with holes (shoelace formulas)."""
 
     def ring(coords: np.ndarray) -> tuple[float, float, float]:
@@ -59,7 +59,7 @@ def test_stress_resultants_equal_applied_force_and_moment() -> None:
 
 
 @pytest.mark.parametrize("example", [US_EXAMPLE, EXAMPLES / "harl-brook-span1-g2-harped.toml"])
-def test_cgs_on_the_zone_boundary_gives_utilisation_one(example) -> None:  # noqa: ANN001
+def test_cgs_on_the_zone_boundary_gives_utilisation_one(example) -> None:
     girder = resolve_girder(load_job(example))
     losses = compute_losses(girder)
     sts = stations(girder)
