@@ -37,7 +37,14 @@ from prestress.tomlread import Table, read_toml
 from prestress.units import INCH_MM, KSI_MPA, to_internal
 
 #: Loss methods the job may choose (see ``prestress.losses``).
-LOSS_METHODS = ("aashto-approximate", "aashto-refined")
+LOSS_METHODS = (
+    "aashto-approximate",
+    "aashto-refined",
+    "time-step-aashto",
+    "time-step-aci209",
+    "time-step-mc2010",
+    "time-step-en1992",
+)
 
 #: Jacking stress limits for pretensioning, AASHTO LRFD 9th Ed. (2020) Table 5.9.2.2-1.
 JACKING_LIMIT = {"low": 0.75, "stress-relieved": 0.70}

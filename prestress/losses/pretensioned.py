@@ -120,7 +120,9 @@ def finish(
     fpbt = strand.stress_before_transfer
     es = sum(c.value for c in components if c.key == "elastic_shortening")
     time_dep = sum(
-        c.value for c in components if c.period not in ("before transfer", "at transfer")
+        c.value
+        for c in components
+        if c.applied and c.period not in ("before transfer", "at transfer")
     )
     f_pt = fpbt - es
     f_pe = f_pt - time_dep

@@ -109,9 +109,9 @@ def compare_table(results: list[LossBreakdown], A_ps: float, system: str) -> Tab
         "a mechanism a method does not model is shown as —.",
         caption_justify="left",
     )
-    t.add_column("Mechanism")
+    t.add_column("Mechanism", min_width=22)
     for b in results:
-        t.add_column(b.method, justify="right", no_wrap=True)
+        t.add_column("\n".join(b.method.rsplit("-", 1)), justify="right", no_wrap=True)
     sums = [by_mechanism(b) for b in results]
     keys = [k for k in MECHANISMS if any(k in s for s in sums)]
     for k in keys:
