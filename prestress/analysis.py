@@ -224,6 +224,19 @@ def _check_strands_inside(job: Job, poly) -> None:  # type: ignore[no-untyped-de
     """
     from shapely.geometry import Point
 
+    for i, t in enumerate(job.tendons):
+        prof = t.profile()
+        xs = np.linspace(prof.x_start_mm, prof.x_end_mm, 41)
+        r = max(t.duct_diameter, job.strand.diameter) / 2.0
+        for y in np.asarray(prof.height(xs)):
+            p = Point(0.0, float(y))
+            if not poly.contains(p) or poly.exterior.distance(p) < r:
+                raise InputError(
+                    "a tendon profile inside the concrete with the duct's radius of cover",
+                    file=job.file,
+                    field=f"tendons[{i}].points",
+                    got=f"a point at y = {y / 25.4:.2f} in on the girder axis",
+                )
     for i, row in enumerate(job.rows):
         points = [(float(x), row.height) for x in row.x_positions()]
         if row.harp is not None:  # at the ends: one column on the axis
@@ -377,6 +390,8 @@ def check_fiber(stress: float, limit: FiberLimit | None, strength: float, sym: s
         else:
             util = 0.0 if stress == 0 else None
             ok = stress <= 0
+    elif comp is not None or tens is not None:
+        util = 0.0  # a limit of the other sign only: checked, and far from it
     return FiberResult(stress, comp, tens, util, ok, "; ".join(texts) or "not checked")
 
 
@@ -404,15 +419,15 @@ def zone_at(girder: Girder, losses: LossBreakdown, stations_: list) -> tuple[Zon
     """The permissible zone of the cgs at the given stations, from every stage's limits."""
     from prestress.stages import stage_specs, stage_stresses, zone_bounds
 
-    job = girder.job
-    assert job.layout is not None
     bounds: dict[float, list[tuple[float, float, str, str]]] = {}
     for spec in stage_specs(girder):
         raw = stage_stresses(girder, losses, spec, stations_)
         for st, b in zip(raw.stations, zone_bounds(raw, _limits_of(girder, spec.key)), strict=True):
             bounds.setdefault(round(st.x, 3), []).append(b)
     zone = []
-    cgs = job.layout.cgs(np.array([st.x for st in stations_]))
+    from prestress.stages import prestress_at
+
+    cgs = prestress_at(girder, losses, "final", np.array([st.x for st in stations_]))[1]
     for st, y in zip(stations_, cgs, strict=True):
         lo, hi, who_lo, who_hi = -np.inf, np.inf, "", ""
         for b_lo, b_hi, w_lo, w_hi in bounds.get(round(st.x, 3), []):

@@ -281,17 +281,28 @@ def cmd_losses(args: argparse.Namespace) -> int:
         }
         sys.stdout.write(json.dumps(data, indent=2, ensure_ascii=False, allow_nan=False) + "\n")
         return EXIT_OK
+    from prestress.present.common import fmt, label
+
     console = make_console()
     console.print(
         f"[bold]prestress losses[/] — {job.title} ({job.file}); "
-        f"{job.strand_count} strands, Aps {job.A_ps / 645.16:.3f} in², "
-        f"fpj {job.strand.jacking_stress / 6.894757293168361:.1f} ksi"
+        + (
+            f"{len(job.tendons)} tendons of {sum(t.strands for t in job.tendons)} strands"
+            if job.post_tensioned
+            else f"{job.strand_count} strands"
+        )
+        + f", Aps {fmt(job.A_ps, system, 'area')} {label(system, 'area')}, fpj "
+        f"{fmt(chosen.jacking_stress, system, 'stress')} {label(system, 'stress')}; "
+        f"stresses on {girder.basis} sections"
     )
     if args.compare:
         console.print(view.compare_table(results, job.A_ps, system))
         for s in skipped:
             console.print(f"[dim]Not applicable: {s}[/]")
     else:
+        if job.post_tensioned:
+            for t in view.tendon_tables(girder, system):
+                console.print(t)
         for t in view.stage_tables(chosen, job.A_ps, system):
             console.print(t)
         for n in chosen.notes:

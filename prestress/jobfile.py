@@ -7,6 +7,7 @@ key. The job-file format is documented in ``docs/job-file.md`` and by the exampl
 
 from __future__ import annotations
 
+import itertools
 from pathlib import Path
 
 import numpy as np
@@ -30,6 +31,7 @@ from prestress.model import (
     SectionRef,
     Strand,
     StrandRow,
+    Tendon,
     TensionLimit,
     Times,
 )
@@ -38,6 +40,7 @@ from prestress.units import INCH_MM, KSI_MPA, to_internal
 
 #: Loss methods the job may choose (see ``prestress.losses``).
 LOSS_METHODS = (
+    "given",
     "aashto-approximate",
     "aashto-refined",
     "time-step-aashto",
@@ -303,6 +306,68 @@ def _percent(t: Table, key: str) -> float:
     if not 0.0 <= value <= 100.0:
         raise t.error(key, "a relative humidity from 0 to 100 percent", f"{value:g}")
     return value
+
+
+def _tendons(top: Table, strand: Strand, length: float) -> list[Tendon]:
+    """The [[tendons]] tables: profile, friction, anchor set, jacking (post-tensioning)."""
+    out = []
+    for t in top.tables("tendons", required=False):
+        name = t.string("name", f"T{len(out) + 1}")
+        n = t.integer("strands", low=1)
+        raw = t.raw("points", expected='control points [["0 ft", "36 in"], ["60 ft", "8 in"], ...]')
+        if (
+            not isinstance(raw, list)
+            or len(raw) < 3
+            or not all(isinstance(p, list) and len(p) == 2 for p in raw)
+        ):
+            raise t.error(
+                "points",
+                "at least three control points [x, y]: end anchor, low point, "
+                'end anchor, e.g. [["0 ft", "36 in"], ["60 ft", "8 in"], '
+                '["120 ft", "36 in"]]',
+            )
+        xs, ys = [], []
+        for i, (x, y) in enumerate(raw):
+            xs.append(to_internal(x, "length", field=f"{t.field('points')}[{i}][0]", file=t.file))
+            ys.append(to_internal(y, "length", field=f"{t.field('points')}[{i}][1]", file=t.file))
+        if any(b <= a for a, b in itertools.pairwise(xs)) or xs[0] < 0 or xs[-1] > length:
+            raise t.error("points", "control points in increasing x within the girder length")
+        infl = t.number("inflection", None, low=0.01, high=0.99) if t.has("inflection") else None
+        t.raw("inflection", None)
+        fr = t.table("friction")
+        assert fr is not None
+        mu = fr.number("mu", low=0.0, high=1.0)
+        K = fr.quantity("wobble", "per_length", non_negative=True)
+        fr.done()
+        fpj = t.quantity("jacking_stress", "stress", positive=True)
+        if fpj > 0.90 * strand.fpy * (1 + 1e-9):
+            raise t.error(
+                "jacking_stress",
+                "at most 0.90 fpy (AASHTO LRFD Table 5.9.2.2-1, "
+                "post-tensioning prior to seating; from memory)",
+                f"{fpj / KSI_MPA:.4g} ksi",
+            )
+        tendon = Tendon(
+            name=name,
+            strands=n,
+            area=n * strand.area,
+            x=tuple(xs),
+            y=tuple(ys),
+            inflection=infl,
+            duct_diameter=t.quantity("duct_diameter", "length", 0.0, non_negative=True),
+            jacking=t.string("jacking", "left", choices=("left", "right", "both")),
+            mu=mu,
+            K=K,
+            anchor_set=t.quantity("anchor_set", "length", 0.375 * INCH_MM, non_negative=True),
+            jacking_stress=fpj,
+        )
+        try:
+            tendon.profile()
+        except ValueError as exc:
+            raise t.error("points", f"a valid profile ({exc})") from None
+        t.done()
+        out.append(tendon)
+    return out
 
 
 def _hold_downs(h: Table, length: float) -> tuple[float, float]:
@@ -645,8 +710,17 @@ def load_job(path: str | Path) -> Job:
     assert s is not None
     strand = _strand(s)
 
-    st = top.table("strands")
-    assert st is not None
+    tendons = _tendons(top, strand, length)
+    st = top.table("strands", required=not tendons)
+    if st is None:
+        st = Table({}, file=file, path="strands")
+    elif tendons:
+        raise st.error(
+            "rows",
+            "either pretensioned strands or post-tensioned tendons in one job "
+            "(a combination is not supported yet)",
+            "both [strands] and [[tendons]]",
+        )
     lt_default = 60.0 * strand.diameter
     lt = st.quantity("transfer_length", "length", lt_default, positive=True)
     lt_source = (
@@ -656,7 +730,7 @@ def load_job(path: str | Path) -> Job:
     grid = st.table("grid", required=False)
     if grid is not None:
         rows += _grid_rows(grid, len(rows))
-    if not rows:
+    if not rows and not tendons:
         raise st.error(
             "rows", "at least one [[strands.rows]] table or a [strands.grid]", "no strands"
         )
@@ -674,7 +748,7 @@ def load_job(path: str | Path) -> Job:
             det.raw("max_terminations_count", None)
         det.done()
     st.done()
-    layout = build_layout(rows, strand.area, length, lt, rules)
+    layout = build_layout(rows, strand.area, length, lt, rules) if rows else None
 
     ld = top.table("loads", required=False)
     if ld is None:
@@ -705,12 +779,42 @@ def load_job(path: str | Path) -> Job:
     times = Times(relative_humidity=rh, **ages)
 
     ls = top.table("losses", required=False)
-    method = "aashto-approximate"
+    method = "given" if tendons else "aashto-approximate"
     basis = "gross"
+    long_term_given = None
     if ls is not None:
         method = ls.string("method", method, choices=LOSS_METHODS)
         basis = ls.string("section", basis, choices=("gross", "transformed"))
+        if method == "given":
+            lt_final = ls.quantity("long_term", "stress", non_negative=True)
+            lt_deck = ls.quantity("long_term_to_deck", "stress", None, non_negative=True)
+            if lt_deck is not None and lt_deck > lt_final:
+                raise ls.error("long_term_to_deck", "no more than the final long-term loss")
+            long_term_given = (lt_final, lt_deck)
+        else:
+            ls.raw("long_term", None)
+            ls.raw("long_term_to_deck", None)
         ls.done()
+    if tendons and basis == "transformed":
+        raise InputError(
+            'section = "gross" for a post-tensioned girder (the ducts are not bonded at stressing)',
+            file=file,
+            field="losses.section",
+        )
+    if tendons and method != "given":
+        raise InputError(
+            'method = "given" for a post-tensioned girder (the AASHTO estimates '
+            "and the time-step method here are for pretensioned girders)",
+            file=file,
+            field="losses.method",
+            got=f"'{method}'",
+        )
+    if method == "given" and long_term_given is None:
+        raise InputError(
+            'a [losses] table with long_term = "..." for method "given"',
+            file=file,
+            field="losses.long_term",
+        )
 
     combos = {
         "service_permanent": Combination(1.0, 0.0),
@@ -793,6 +897,8 @@ def load_job(path: str | Path) -> Job:
         strand=strand,
         rows=tuple(rows),
         layout=layout,
+        tendons=tuple(tendons),
+        long_term_given=long_term_given,
         handling=handling,
         user_stations=tuple(user_stations),
         loads=loads,

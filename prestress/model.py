@@ -82,6 +82,45 @@ class StrandRow:
 
 
 @dataclass(frozen=True)
+class Tendon:
+    """A post-tensioned tendon (mm, mm^2, MPa, rad).
+
+    Attributes:
+        name: label, e.g. "T1".
+        strands: number of strands in the tendon (of the job's strand type).
+        area: total strand area, mm^2.
+        x: control points along the girder from its left end, mm (anchor, low/high points, anchor).
+        y: heights of the control points above the girder bottom, mm.
+        inflection: inflection fraction(s) of reverse curves (continuous layouts), or None.
+        duct_diameter: outside duct diameter, mm.
+        jacking: "left", "right" or "both".
+        mu: curvature friction coefficient, per radian.
+        K: wobble coefficient, per mm of tendon.
+        anchor_set: anchor set (wedge seat), mm.
+        jacking_stress: fpj, MPa.
+    """
+
+    name: str
+    strands: int
+    area: float
+    x: tuple[float, ...]
+    y: tuple[float, ...]
+    inflection: float | None
+    duct_diameter: float
+    jacking: str
+    mu: float
+    K: float
+    anchor_set: float
+    jacking_stress: float
+
+    def profile(self, depth: float | None = None):
+        """The tendon's parabolic profile (prestress.tendons.TendonProfile)."""
+        from prestress.tendons import TendonProfile
+
+        return TendonProfile(self.x, self.y, self.inflection, depth)
+
+
+@dataclass(frozen=True)
 class Deck:
     """Cast-in-place deck slab on the girder (mm).
 
@@ -302,6 +341,8 @@ class Job:
     spacing: float | None = None
     layout: Layout | None = None
     handling: Handling | None = None
+    tendons: tuple[Tendon, ...] = ()
+    long_term_given: tuple[float, float | None] | None = None  # (final, to deck) loss, MPa
     user_stations: tuple[tuple[str, float], ...] = ()  # (name, x from the left end, mm)
 
     @property
@@ -311,17 +352,30 @@ class Job:
 
     @property
     def strand_count(self) -> int:
-        """Total number of strands."""
+        """Total number of pretensioned strands."""
         return sum(r.count for r in self.rows)
 
     @property
     def A_ps(self) -> float:
-        """Total prestressing steel area (mm^2)."""
-        return self.strand_count * self.strand.area
+        """Total prestressing steel area (mm^2): pretensioned strands and tendons."""
+        return self.strand_count * self.strand.area + sum(t.area for t in self.tendons)
+
+    @property
+    def post_tensioned(self) -> bool:
+        """Whether the girder is post-tensioned (tendons, no pretensioned strands)."""
+        return bool(self.tendons)
+
+    def cgs_geometric(self, x: np.ndarray) -> np.ndarray:
+        """Height of the centroid of all prestressing steel at x, bonded or not (mm)."""
+        if self.tendons:
+            num = sum(t.area * np.asarray(t.profile().height(x)) for t in self.tendons)
+            return np.asarray(num, dtype=float) / sum(t.area for t in self.tendons)
+        assert self.layout is not None
+        return self.layout.cgs_all(x)
 
     @property
     def y_ps(self) -> float:
         """Height of the centroid of all strands at midlength (mm above the girder bottom)."""
-        if self.layout is not None:
-            return float(self.layout.cgs_all(np.array([self.length / 2.0]))[0])
+        if self.tendons or self.layout is not None:
+            return float(self.cgs_geometric(np.array([self.length / 2.0]))[0])
         return sum(r.count * r.height for r in self.rows) / self.strand_count

@@ -63,6 +63,10 @@ def stations(girder: Girder) -> list[Station]:
     raw += [("left lt", lt), ("right lt", L - lt)]
     if job.layout is not None:
         raw += job.layout.key_positions()
+    for t in job.tendons:
+        for i, (xt, _y) in enumerate(zip(t.x, t.y, strict=True)):
+            if 0 < i < len(t.x) - 1:
+                raw.append(("tendon profile point", xt))
     for i in range(11):
         if i in (0, 10):
             name = "left bearing" if i == 0 else "right bearing"
@@ -70,15 +74,20 @@ def stations(girder: Girder) -> list[Station]:
             name = "midspan" if i == 5 else f"{i / 10:.1f} span"
         raw.append((name, a + S * i / 10.0))
     raw += list(job.user_stations)
-    merged: list[tuple[list[str], float]] = []
-    for name, x in sorted(raw, key=lambda p: p[1]):
+    merged: list[tuple[list[tuple[int, str]], float]] = []
+    order = sorted(range(len(raw)), key=lambda k: raw[k][1])
+    for k in order:
+        name, x = raw[k]
         x = min(max(x, 0.0), L)
         if merged and abs(merged[-1][1] - x) <= 1.0:
-            if name not in merged[-1][0]:
-                merged[-1][0].append(name)
+            if name not in [n for _, n in merged[-1][0]]:
+                merged[-1][0].append((k, name))
         else:
-            merged.append(([name], x))
-    return [Station(" / ".join(names), x) for names, x in merged]
+            merged.append(([(k, name)], x))
+    # names of a merged station in a fixed order (the order they are listed above), so the
+    # result does not depend on round-off in positions
+    merged = [(sorted(names), x) for names, x in merged]
+    return [Station(" / ".join(n for _, n in names), x) for names, x in merged]
 
 
 # ------------------------------------------------------------------------------------------
@@ -103,10 +112,11 @@ class StageSpec:
 def stage_specs(girder: Girder) -> list[StageSpec]:
     """The stages of the job, in time order."""
     job = girder.job
+    first = "Post-tensioning" if job.post_tensioned else "Release in the casting bed"
     specs = [
         StageSpec(
             "transfer",
-            "Release in the casting bed",
+            first,
             "transfer",
             "ends",
             1.0,
@@ -207,6 +217,32 @@ def applied_stress(losses: LossBreakdown, when: str) -> tuple[float, str | None]
     return m.stress + shift, None
 
 
+def prestress_at(
+    girder: Girder, losses: LossBreakdown, when: str, x: np.ndarray
+) -> tuple[np.ndarray, np.ndarray, str | None]:
+    """Prestress force (N) and the height of its centroid (mm) at x, at a time; and a note.
+
+    Pretensioned: the stage's strand stress times the developed area of each strand set.
+    Post-tensioned: each tendon's stress at x after friction, anchor set, elastic shortening
+    and the time-dependent losses of that time, at its profile height.
+    """
+    job = girder.job
+    if job.post_tensioned:
+        from prestress.losses.post_tensioned import tendon_stress
+
+        P = np.zeros_like(x)
+        Py = np.zeros_like(x)
+        for t, f in tendon_stress(girder, losses, when, x):
+            Pt = t.area * f
+            P += Pt
+            Py += Pt * np.asarray(t.profile().height(x))
+        cgs = np.where(P > 0, Py / np.where(P > 0, P, 1.0), job.cgs_geometric(x))
+        return P, cgs, None
+    assert job.layout is not None
+    fp, note = applied_stress(losses, when)
+    return fp * job.layout.effective_area(x), job.layout.cgs(x), note
+
+
 def moments(girder: Girder, spec: StageSpec, x: np.ndarray) -> dict[str, np.ndarray]:
     """Factored moments of the stage's loads at x from the left end (N*mm), by load."""
     job = girder.job
@@ -270,11 +306,9 @@ def stage_stresses(
         sts = list(all_stations)
     x = np.array([s.x for s in sts])
     sec = girder.section_transfer if spec.prestress == "transfer" else girder.section_service
-    assert sec is not None and job.layout is not None
+    assert sec is not None
     comp = girder.section_composite
-    fp, note = applied_stress(losses, spec.prestress)
-    P = fp * job.layout.effective_area(x)
-    cgs = job.layout.cgs(x)
+    P, cgs, note = prestress_at(girder, losses, spec.prestress, x)
     e = sec.yb - cgs
     ms = moments(girder, spec, x)
     M_nc = sum((m for k, m in ms.items() if k not in COMPOSITE_LOADS), np.zeros_like(x))

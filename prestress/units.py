@@ -49,6 +49,7 @@ KINDS: dict[str, Kind] = {
         Kind("line_load", "N/mm", '"1.2 kip/ft" or "17.5 kN/m"', "a load per length"),
         Kind("unit_weight", "N/mm**3", '"150 pcf" or "23.6 kN/m^3"', "a unit weight"),
         Kind("time", "day", '"1 day" or "75 year"', "a time"),
+        Kind("per_length", "1/mm", '"0.0002 /ft"', "a coefficient per length"),
         Kind("dimensionless", "", '"70 percent"', "a dimensionless number"),
     )
 }

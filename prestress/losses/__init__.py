@@ -128,7 +128,12 @@ def register(name: str) -> Callable[[LossMethod], LossMethod]:
 
 def load_methods() -> None:
     """Import the modules that register the loss methods."""
-    from prestress.losses import pretensioned, refined, timestep_method  # noqa: F401
+    from prestress.losses import (  # noqa: F401
+        post_tensioned,
+        pretensioned,
+        refined,
+        timestep_method,
+    )
 
 
 def compute_losses(girder: Girder, method: str | None = None) -> LossBreakdown:

@@ -72,26 +72,48 @@ def header(result: CheckResult, system: str) -> Panel:
                 f"modular ratio n = {g.n_deck:.3f}",
             )
         )
+    if job.post_tensioned:
+        rows += [
+            (
+                "Tendons",
+                ", ".join(
+                    f"{t.name}: {t.strands} × {fmt(st.diameter, system, 'dimension')} "
+                    f"{u('dimension')}, fpj {fmt(t.jacking_stress, system, 'stress')} "
+                    f"{u('stress')}, jacked {t.jacking}, μ {t.mu:g}"
+                    for t in job.tendons
+                )
+                + f"; Aps {fmt(job.A_ps, system, 'area')} {u('area')}",
+            ),
+            (
+                "Tendon centroid",
+                f"{fmt(job.y_ps, system, 'dimension')} {u('dimension')} above the bottom at "
+                f"midlength; e = {fmt(g.eccentricity_gross, system, 'dimension')} "
+                f"{u('dimension')} below the girder centroid",
+            ),
+        ]
+    else:
+        rows += [
+            (
+                "Strands",
+                f"{job.strand_count} × {fmt(st.diameter, system, 'dimension')} {u('dimension')}"
+                f" ({st.relaxation}-relaxation), Aps {fmt(job.A_ps, system, 'area')} "
+                f"{u('area')}, fpu {fmt(st.fpu, system, 'stress')} {u('stress')}, "
+                f"fpj {fmt(st.jacking_stress, system, 'stress')} {u('stress')}, "
+                f"Ep {fmt(st.Ep, system, 'modulus_e')} {u('modulus_e')}",
+            ),
+            (
+                "Strand centroid",
+                f"{fmt(job.y_ps, system, 'dimension')} {u('dimension')} above the "
+                f"bottom; e = {fmt(g.eccentricity_gross, system, 'dimension')} "
+                f"{u('dimension')} below the girder centroid",
+            ),
+            (
+                "Transfer length",
+                f"{fmt(job.transfer_length, system, 'dimension')} {u('dimension')} "
+                f"({job.transfer_length_source})",
+            ),
+        ]
     rows += [
-        (
-            "Strands",
-            f"{job.strand_count} × {fmt(st.diameter, system, 'dimension')} {u('dimension')}"
-            f" ({st.relaxation}-relaxation), Aps {fmt(job.A_ps, system, 'area')} "
-            f"{u('area')}, fpu {fmt(st.fpu, system, 'stress')} {u('stress')}, "
-            f"fpj {fmt(st.jacking_stress, system, 'stress')} {u('stress')}, "
-            f"Ep {fmt(st.Ep, system, 'modulus_e')} {u('modulus_e')}",
-        ),
-        (
-            "Strand centroid",
-            f"{fmt(job.y_ps, system, 'dimension')} {u('dimension')} above the "
-            f"bottom; e = {fmt(g.eccentricity_gross, system, 'dimension')} "
-            f"{u('dimension')} below the girder centroid",
-        ),
-        (
-            "Transfer length",
-            f"{fmt(job.transfer_length, system, 'dimension')} {u('dimension')} "
-            f"({job.transfer_length_source})",
-        ),
         ("Limits", f"{job.limits.name} — {job.limits.source}"),
     ]
     return Panel(

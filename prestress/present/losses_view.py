@@ -169,3 +169,60 @@ def to_dict(b: LossBreakdown, A_ps: float, system: str) -> dict[str, Any]:
         },
         "notes": list(b.notes),
     }
+
+
+def tendon_tables(girder, system: str) -> list[Table]:
+    """Post-tensioned tendons: stress after friction and anchor set along each, elongations."""
+    import numpy as np
+
+    from prestress.losses.post_tensioned import tendon_states
+
+    job = girder.job
+    su, pu, du = label(system, "stress"), label(system, "position"), label(system, "dimension")
+    out = []
+    for s in tendon_states(girder):
+        t = s.tendon
+        xs = np.linspace(s.x[0], s.x[-1], 11)
+        tab = Table(
+            title=f"Tendon {t.name}: {t.strands} strands, jacked at the {t.jacking} "
+            f"end{'s' if t.jacking == 'both' else ''} to "
+            f"{fmt(t.jacking_stress, system, 'stress', 1)} {su}",
+            title_justify="left",
+            title_style="bold",
+            box=box.SIMPLE_HEAD,
+            caption=f"x in {pu} from the left end; heights in {du}; stresses in {su}. "
+            f"Friction: μ = {t.mu:g}, K per length as given (AASHTO LRFD Eq. "
+            f"5.9.3.2.2b-1); anchor set {fmt(t.anchor_set, system, 'dimension', 3)} {du} "
+            "by the area method. Expected elongation: "
+            + ", ".join(
+                f"{end} {fmt(v, system, 'dimension', 2)} {du}" for end, v in s.elongation.items()
+            )
+            + " (measured within about ±7 % is common practice).",
+            caption_justify="left",
+        )
+        for col in (
+            "x",
+            "height",
+            "after friction",
+            "friction loss",
+            "after anchor set",
+            "set loss",
+            "% fpj",
+        ):
+            tab.add_column(col, justify="right", no_wrap=True)
+        prof = t.profile()
+        fr = np.interp(xs, s.x, s.after_friction)
+        st = np.interp(xs, s.x, s.after_set)
+        for x, h, f1, f2 in zip(xs, np.asarray(prof.height(xs)), fr, st, strict=True):
+            tab.add_row(
+                fmt(x, system, "position", 2),
+                fmt(h, system, "dimension", 2),
+                fmt(f1, system, "stress", 1),
+                fmt(t.jacking_stress - f1, system, "stress", 2),
+                fmt(f2, system, "stress", 1),
+                fmt(f1 - f2, system, "stress", 2),
+                f"{100 * f2 / t.jacking_stress:.1f}",
+            )
+        out.append(tab)
+    del job
+    return out
