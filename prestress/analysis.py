@@ -415,13 +415,20 @@ def _limits_of(girder: Girder, key: str) -> dict[str, tuple[float | None, float 
     return out
 
 
-def zone_at(girder: Girder, losses: LossBreakdown, stations_: list) -> tuple[ZoneStation, ...]:
-    """The permissible zone of the cgs at the given stations, from every stage's limits."""
+def zone_at(
+    girder: Girder, losses: LossBreakdown, stations_: list, raws: list | None = None
+) -> tuple[ZoneStation, ...]:
+    """The permissible zone of the cgs at the given stations, from every stage's limits.
+
+    ``raws``: the stages' results at these stations when already computed.
+    """
     from prestress.stages import stage_specs, stage_stresses, zone_bounds
 
     bounds: dict[float, list[tuple[float, float, str, str]]] = {}
-    for spec in stage_specs(girder):
-        raw = stage_stresses(girder, losses, spec, stations_)
+    if raws is None:
+        raws = [stage_stresses(girder, losses, spec, stations_) for spec in stage_specs(girder)]
+    for raw in raws:
+        spec = raw.spec
         for st, b in zip(raw.stations, zone_bounds(raw, _limits_of(girder, spec.key)), strict=True):
             bounds.setdefault(round(st.x, 3), []).append(b)
     zone = []
@@ -459,8 +466,10 @@ def run_check(job: Job, *, cli_libraries: tuple[str, ...] = ()) -> CheckResult:
     gc = job.girder_concrete
     results = []
     notes = list(girder.notices + losses.notes)
+    raws = []
     for spec in stage_specs(girder):
         raw = stage_stresses(girder, losses, spec, all_st)
+        raws.append(raw)
         strength = gc.fci if spec.strength == "fci" else gc.fc
         sym = "f'ci" if spec.strength == "fci" else "f'c"
         assert strength is not None
@@ -521,7 +530,7 @@ def run_check(job: Job, *, cli_libraries: tuple[str, ...] = ()) -> CheckResult:
                 notes=tuple(stage_notes),
             )
         )
-    zone = zone_at(girder, losses, all_st)
+    zone = zone_at(girder, losses, all_st, raws)
     if job.layout is not None:
         from prestress.layout import debonding_warnings
 

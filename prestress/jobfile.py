@@ -15,6 +15,7 @@ import numpy as np
 from prestress.codes.aashto_lrfd import effective_width
 from prestress.errors import InputError
 from prestress.layout import Layout, StrandSet
+from prestress.losses import METHOD_MODULES
 from prestress.materials import MODULUS_FORMULAS, concrete_modulus
 from prestress.model import (
     FIBERS,
@@ -39,15 +40,7 @@ from prestress.tomlread import Table, read_toml
 from prestress.units import INCH_MM, KSI_MPA, to_internal
 
 #: Loss methods the job may choose (see ``prestress.losses``).
-LOSS_METHODS = (
-    "given",
-    "aashto-approximate",
-    "aashto-refined",
-    "time-step-aashto",
-    "time-step-aci209",
-    "time-step-mc2010",
-    "time-step-en1992",
-)
+LOSS_METHODS = tuple(METHOD_MODULES)
 
 #: Jacking stress limits for pretensioning, AASHTO LRFD 9th Ed. (2020) Table 5.9.2.2-1.
 JACKING_LIMIT = {"low": 0.75, "stress-relieved": 0.70}

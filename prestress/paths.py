@@ -8,6 +8,7 @@ install, otherwise the copies packaged inside the wheel (``prestress/_data/...``
 from __future__ import annotations
 
 import os
+import sys
 from pathlib import Path
 
 _PACKAGE = Path(__file__).resolve().parent
@@ -35,6 +36,12 @@ def cache_dir() -> Path:
     env = os.environ.get("PRESTRESS_CACHE_DIR")
     if env:
         return Path(env)
+    if sys.platform.startswith("linux"):
+        # the XDG Base Directory convention, as platformdirs applies it (cheaper to import)
+        base = os.environ.get("XDG_CACHE_HOME", "").strip()
+        return (Path(base) if base and Path(base).is_absolute() else Path.home() / ".cache") / (
+            "prestress"
+        )
     import platformdirs
 
     return Path(platformdirs.user_cache_dir("prestress", appauthor=False))

@@ -141,14 +141,68 @@ def parse_quantity(value: Any, kind: str, *, field: str = "", file: str = "") ->
 _NUMBER_UNIT = re.compile(r"^\s*([-+]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][-+]?\d+)?)\s*(\S.*?)\s*$")
 
 
-@lru_cache(maxsize=512)
+_FACTORS: dict[str, float] | None = None
+
+
+def _factor_cache_path():
+    from importlib.metadata import version
+
+    from prestress import __version__
+    from prestress.paths import cache_dir
+
+    return cache_dir() / f"unit-factors-{__version__}-pint{version('pint')}.json"
+
+
+def _load_factors() -> dict[str, float]:
+    """Unit factors from the disk cache (a bad or missing file is simply ignored)."""
+    global _FACTORS
+    if _FACTORS is None:
+        import json
+
+        _FACTORS = {}
+        try:
+            data = json.loads(_factor_cache_path().read_text(encoding="utf-8"))
+            if isinstance(data, dict):
+                _FACTORS = {
+                    k: float(v)
+                    for k, v in data.items()
+                    if isinstance(k, str)
+                    and isinstance(v, int | float)
+                    and math.isfinite(v)
+                    and v > 0
+                }
+        except (OSError, ValueError, TypeError):
+            _FACTORS = {}
+    return _FACTORS
+
+
 def _unit_factor(unit_text: str, kind: str) -> float | None:
-    """Size of ``1 unit_text`` in the internal unit of ``kind``; None if not of that kind."""
+    """Size of ``1 unit_text`` in the internal unit of ``kind``; None if not of that kind.
+
+    Factors are cached in memory and on disk (keyed by the package's version; ``prestress
+    cache clear`` empties it), so a warm start parses no unit with pint and does not even
+    import it.
+    """
+    factors = _load_factors()
+    key = f"{kind}\x1f{unit_text}"
+    if key in factors:
+        return factors[key]
     try:
         q = parse_quantity("1 " + unit_text, kind)
     except InputError:
         return None
-    return float(q.to(KINDS[kind].internal or "dimensionless").magnitude)
+    value = float(q.to(KINDS[kind].internal or "dimensionless").magnitude)
+    if math.isfinite(value) and value > 0:
+        factors[key] = value
+        try:
+            import json
+
+            from prestress.atomic import write_atomic
+
+            write_atomic(_factor_cache_path(), json.dumps(factors, sort_keys=True))
+        except OSError:
+            pass
+    return value
 
 
 def to_internal(value: Any, kind: str, *, field: str = "", file: str = "") -> float:

@@ -126,18 +126,28 @@ def register(name: str) -> Callable[[LossMethod], LossMethod]:
     return deco
 
 
-def load_methods() -> None:
-    """Import the modules that register the loss methods."""
-    from prestress.losses import (  # noqa: F401
-        post_tensioned,
-        pretensioned,
-        refined,
-        timestep_method,
-    )
+#: Which module registers each method (imported only when the method is used, for start-up).
+METHOD_MODULES = {
+    "given": "prestress.losses.post_tensioned",
+    "aashto-approximate": "prestress.losses.pretensioned",
+    "aashto-refined": "prestress.losses.refined",
+    "time-step-aashto": "prestress.losses.timestep_method",
+    "time-step-aci209": "prestress.losses.timestep_method",
+    "time-step-mc2010": "prestress.losses.timestep_method",
+    "time-step-en1992": "prestress.losses.timestep_method",
+}
+
+
+def load_methods(name: str | None = None) -> None:
+    """Import the module registering one method (or every method)."""
+    import importlib
+
+    for module in {METHOD_MODULES[name]} if name else set(METHOD_MODULES.values()):
+        importlib.import_module(module)
 
 
 def compute_losses(girder: Girder, method: str | None = None) -> LossBreakdown:
     """The losses of the girder by the named method (default: the job's choice)."""
-    load_methods()
     name = method or girder.job.loss_method
+    load_methods(name)
     return METHODS[name](girder)

@@ -367,17 +367,22 @@ def verdict(result: CheckResult) -> str:
 
 
 def make_console() -> Console:
-    """A console: the terminal's width, or 120 columns (``COLUMNS`` overrides) when piped."""
+    """A console: the terminal's width, or 120 columns (``COLUMNS`` overrides) when piped.
+
+    Piped output carries no colour codes (unless ``FORCE_COLOR`` is set); rich's automatic
+    highlighting is off, since the presenters style what matters themselves.
+    """
     import os
     import sys
 
     if sys.stdout.isatty():
-        return Console()
+        return Console(highlight=False)
     try:
         width = int(os.environ.get("COLUMNS", "120"))
     except ValueError:
         width = 120
-    return Console(width=max(60, width))
+    color = "auto" if os.environ.get("FORCE_COLOR") else None
+    return Console(width=max(60, width), highlight=False, color_system=color)
 
 
 def render(
