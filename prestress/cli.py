@@ -71,6 +71,17 @@ def build_parser() -> argparse.ArgumentParser:
     )
     _add_common(p)
 
+    p = sub.add_parser("design", help="search the leanest strand pattern that passes")
+    p.add_argument("job", help="the job file (TOML); its optional [design] table sets the space")
+    p.add_argument(
+        "--write",
+        metavar="NEW.toml",
+        help="write the leanest passing pattern as a new job file (never the input)",
+    )
+    p.add_argument("--force", action="store_true", help="replace an existing --write file")
+    p.add_argument("--json", action="store_true", help="JSON on standard output")
+    _add_common(p)
+
     p = sub.add_parser("zone", help="the permissible zone of the cgs along the girder")
     p.add_argument("job", help="the job file (TOML)")
     p.add_argument("--json", action="store_true", help="JSON on standard output")
@@ -210,6 +221,37 @@ def cmd_check(args: argparse.Namespace) -> int:
         if args.stations:
             stations = tuple(w.strip() for w in args.stations.split(",") if w.strip())
         render(result, make_console(), system, stages=stages, stations=stations)
+    return EXIT_OK if result.ok else EXIT_FAIL
+
+
+def cmd_design(args: argparse.Namespace) -> int:
+    """``prestress design JOB [--write NEW.toml]``."""
+    import json
+
+    from prestress.design import design_file, write_design_job
+    from prestress.present import design_view
+    from prestress.present.common import CAUTION
+    from prestress.present.console import make_console
+
+    result = design_file(args.job, cli_libraries=tuple(args.library))
+    if args.write:
+        if not result.ok:
+            raise InputError(
+                "a search space with a passing pattern before --write",
+                file=str(args.job),
+                field="design",
+                got="no pattern passes",
+            )
+        write_design_job(args.job, result.leanest, args.write, force=args.force)
+    if args.json:
+        data = design_view.to_dict(result, args.units)
+        data["caution"] = CAUTION
+        sys.stdout.write(json.dumps(data, indent=2, ensure_ascii=False, allow_nan=False) + "\n")
+    else:
+        console = make_console()
+        design_view.render(result, console, args.units)
+        if args.write:
+            console.print(f"wrote the leanest passing pattern to {args.write}")
     return EXIT_OK if result.ok else EXIT_FAIL
 
 
@@ -499,6 +541,7 @@ COMMANDS = {
     "check": cmd_check,
     "losses": cmd_losses,
     "zone": cmd_zone,
+    "design": cmd_design,
     "sections": cmd_sections,
     "section": cmd_section,
     "examples": cmd_examples,

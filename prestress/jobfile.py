@@ -874,6 +874,7 @@ def load_job(path: str | Path) -> Job:
     else:
         limits = read_limits(lim)
 
+    top.raw("design", None)  # the search space of prestress design (read by prestress.design)
     top.done()
     return Job(
         file=file,
