@@ -19,6 +19,9 @@ def write_atomic(path: str | Path, data: str | bytes) -> None:
             f.write(data)
             f.flush()
             os.fsync(f.fileno())
+        umask = os.umask(0)
+        os.umask(umask)
+        os.chmod(tmp, 0o666 & ~umask)  # the usual mode of a new file (mkstemp makes it 0600)
         os.replace(tmp, target)
     except BaseException:
         with contextlib.suppress(OSError):

@@ -57,6 +57,11 @@ def build_parser() -> argparse.ArgumentParser:
     )
     p.add_argument("--force", action="store_true", help="replace an existing output file")
     p.add_argument(
+        "--csv",
+        metavar="DIR",
+        help="also write every stage table, the losses and the zone as CSV files in DIR",
+    )
+    p.add_argument(
         "--stage",
         metavar="KEYS",
         help="show only these stages (comma-separated: transfer, handling, "
@@ -69,6 +74,20 @@ def build_parser() -> argparse.ArgumentParser:
         help="show only stations whose name contains one of these (comma-separated, "
         'e.g. "midspan,lt,hold-down")',
     )
+    _add_common(p)
+
+    p = sub.add_parser("report", help="a reviewable calculation report (HTML or Markdown)")
+    p.add_argument("job", help="the job file (TOML)")
+    p.add_argument("--out", required=True, metavar="FILE", help="FILE.html or FILE.md")
+    p.add_argument("--force", action="store_true", help="replace an existing output file")
+    _add_common(p)
+
+    p = sub.add_parser("plot", help="plots: section, stresses, zone, losses, magnel")
+    p.add_argument("job", help="the job file (TOML)")
+    p.add_argument("kind", choices=("section", "stresses", "zone", "losses", "magnel"))
+    p.add_argument("--out", required=True, metavar="FILE", help="FILE.png or FILE.svg")
+    p.add_argument("--station", help="magnel: the station (name), default midspan")
+    p.add_argument("--force", action="store_true", help="replace an existing output file")
     _add_common(p)
 
     p = sub.add_parser("design", help="search the leanest strand pattern that passes")
@@ -202,6 +221,12 @@ def cmd_check(args: argparse.Namespace) -> int:
         else:
             inputs = [Path(args.job)]
             _write_output(args.json, text, inputs=inputs, force=args.force)
+    if args.csv:
+        from prestress.present.csv_out import write_csv
+
+        written = write_csv(result, Path(args.csv), system, force=args.force)
+        if args.json != "-":
+            print(f"wrote {len(written)} CSV files to {args.csv}", file=sys.stderr)
     if args.json != "-":
         from prestress.model import STAGES
         from prestress.present.console import make_console, render
@@ -222,6 +247,39 @@ def cmd_check(args: argparse.Namespace) -> int:
             stations = tuple(w.strip() for w in args.stations.split(",") if w.strip())
         render(result, make_console(), system, stages=stages, stations=stations)
     return EXIT_OK if result.ok else EXIT_FAIL
+
+
+def cmd_report(args: argparse.Namespace) -> int:
+    """``prestress report JOB --out FILE``."""
+    from prestress.analysis import check_file
+    from prestress.present.report import write_report
+
+    out = Path(args.out)
+    _check_output(out, inputs=[Path(args.job)], force=args.force)
+    job_text = Path(args.job).read_bytes()
+    result = check_file(args.job, cli_libraries=tuple(args.library))
+    write_report(result, out, job_text=job_text, system=args.units, force=args.force)
+    print(f"wrote {out}")
+    return EXIT_OK if result.ok else EXIT_FAIL
+
+
+def cmd_plot(args: argparse.Namespace) -> int:
+    """``prestress plot JOB KIND --out FILE``."""
+    from prestress.analysis import check_file
+    from prestress.present import plots
+
+    out = Path(args.out)
+    if out.suffix.lower() not in (".png", ".svg"):
+        raise InputError("an output file ending in .png or .svg", file=str(out), field="--out")
+    _check_output(out, inputs=[Path(args.job)], force=args.force)
+    result = check_file(args.job, cli_libraries=tuple(args.library))
+    system = args.units or result.girder.job.units
+    if args.kind == "magnel":
+        plots.plot_magnel(result, out, system, station=args.station)
+    else:
+        plots.PLOT_KINDS[args.kind](result, out, system)
+    print(f"wrote {out}")
+    return EXIT_OK
 
 
 def cmd_design(args: argparse.Namespace) -> int:
@@ -542,6 +600,8 @@ COMMANDS = {
     "losses": cmd_losses,
     "zone": cmd_zone,
     "design": cmd_design,
+    "report": cmd_report,
+    "plot": cmd_plot,
     "sections": cmd_sections,
     "section": cmd_section,
     "examples": cmd_examples,
