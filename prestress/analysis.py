@@ -367,6 +367,8 @@ def check_fiber(stress: float, limit: FiberLimit | None, strength: float, sym: s
         strength: the concrete strength the limits refer to (f'ci or f'c), MPa.
         sym: the strength's symbol for the limit text, e.g. "f'ci".
     """
+    if abs(stress) < 1e-9:  # round-off about zero (MPa) is zero, not a tension
+        stress = 0.0
     if limit is None:
         return FiberResult(stress, None, None, None, True, "not checked")
     comp = (

@@ -89,6 +89,14 @@ def _concrete(t: Table, name: str, *, at_transfer: bool) -> Concrete:
             Ec = concrete_modulus(fc, w_mod, formula, K1)
             Eci = concrete_modulus(fci, w_mod, formula, K1) if fci is not None else None
         except ValueError as exc:
+            if "w_c" in str(exc):
+                raise t.error(
+                    "modulus_unit_weight",
+                    "a unit weight within the range of the "
+                    "modulus formula (AASHTO 5.4.2.4: 90 to 155 pcf; ACI 318-19: 90 to "
+                    "160 pcf)",
+                    f"{w_mod * 304.8**3 / 4.4482216152605:.0f} pcf",
+                ) from None
             raise t.error("modulus", f"inputs within the formula's range ({exc})") from None
         source = MODULUS_FORMULAS[formula]
     else:
@@ -102,7 +110,6 @@ def _concrete(t: Table, name: str, *, at_transfer: bool) -> Concrete:
                 + ' or a stress such as "5000 ksi"',
                 repr(raw),
             ) from None
-        Eci = t.quantity("modulus_at_transfer", "stress", positive=True) if at_transfer else None
         source = "given"
         if not 5_000.0 <= Ec <= 80_000.0:
             raise t.error(
@@ -110,14 +117,37 @@ def _concrete(t: Table, name: str, *, at_transfer: bool) -> Concrete:
                 "a concrete modulus from 725 to 11,600 ksi (5 to 80 GPa)",
                 f"{Ec / KSI_MPA:.4g} ksi",
             )
+        Eci = t.quantity("modulus_at_transfer", "stress", positive=True) if at_transfer else None
+        if Eci is not None and not 5_000.0 <= Eci <= 80_000.0:
+            raise t.error(
+                "modulus_at_transfer",
+                "a concrete modulus from 725 to 11,600 ksi (5 to 80 GPa)",
+                f"{Eci / KSI_MPA:.4g} ksi",
+            )
     t.done()
     return Concrete(name=name, fc=fc, fci=fci, unit_weight=w, Ec=Ec, Eci=Eci, modulus_source=source)
 
 
 def _strand(t: Table) -> Strand:
     d = t.quantity("diameter", "length", positive=True)
+    if not 5.0 <= d <= 30.0:
+        raise t.error(
+            "diameter", "a strand diameter from 0.2 to 1.2 in (5 to 30 mm)", f"{d / 25.4:.3g} in"
+        )
     area = t.quantity("area", "area", positive=True)
+    if not 10.0 <= area <= 700.0:
+        raise t.error(
+            "area",
+            "the area of one strand, from 0.015 to 1.1 in² (10 to 700 mm²)",
+            f"{area / 645.16:.4g} in²",
+        )
     fpu = t.quantity("fpu", "stress", positive=True)
+    if not 1_000.0 <= fpu <= 2_500.0:
+        raise t.error(
+            "fpu",
+            "a strand tensile strength from 145 to 363 ksi (1000 to 2500 MPa)",
+            f"{fpu / KSI_MPA:.4g} ksi",
+        )
     fpy = t.quantity("fpy", "stress", positive=True)
     if fpy >= fpu:
         raise t.error("fpy", "fpy less than fpu", f"{fpy / KSI_MPA:.4g} ksi")
@@ -232,7 +262,7 @@ def _live(t: Table | None) -> LiveLoad:
         girders, skew = None, 0.0
         if isinstance(raw, str) and raw.lower() == "aashto":
             df, source = None, "AASHTO LRFD 4.6.2.2.2b-1"
-            girders = t.integer("girders", low=3)
+            girders = t.integer("girders", low=3, high=60)
             skew = t.number("skew_degrees", 0.0, low=0.0, high=60.0)
         elif isinstance(raw, int | float) and not isinstance(raw, bool) and 0 < raw <= 3:
             df, source = float(raw), "given in the job"
@@ -264,7 +294,8 @@ def _live(t: Table | None) -> LiveLoad:
             to_internal(v, "moment", field=f"{t.field('moments')}[{i}]", file=t.file)
             for i, v in enumerate(raw)
         )
-        t.raw("moment_midspan", None)
+        if t.has("moment_midspan"):
+            raise t.error("moment_midspan", "either moments or moment_midspan, not both")
         t.string("note", "")
         t.done()
         return LiveLoad(moment_midspan=None, moments_tenth_points=vals)
@@ -293,7 +324,10 @@ def _diaphragms(ld: Table, span: float) -> tuple[tuple[float, float], ...]:
 def _percent(t: Table, key: str) -> float:
     raw = t.raw(key, expected='a relative humidity in percent, e.g. 70 or "70 percent"')
     if isinstance(raw, int | float) and not isinstance(raw, bool):
-        value = float(raw)
+        try:
+            value = float(raw)
+        except OverflowError:
+            value = float("inf")
     else:
         value = 100.0 * to_internal(raw, "dimensionless", field=t.field(key), file=t.file)
     if not 0.0 <= value <= 100.0:
@@ -306,7 +340,7 @@ def _tendons(top: Table, strand: Strand, length: float) -> list[Tendon]:
     out = []
     for t in top.tables("tendons", required=False):
         name = t.string("name", f"T{len(out) + 1}")
-        n = t.integer("strands", low=1)
+        n = t.integer("strands", low=1, high=200)
         raw = t.raw("points", expected='control points [["0 ft", "36 in"], ["60 ft", "8 in"], ...]')
         if (
             not isinstance(raw, list)
@@ -411,7 +445,7 @@ def _row(r: Table, index: int, length: float) -> StrandRow:
         r.raw("count", None)
         r.raw("spacing", None)
     else:
-        count = r.integer("count", low=1)
+        count = r.integer("count", low=1, high=200)
         spacing = r.quantity("spacing", "length", 2.0 * INCH_MM, positive=True)
         xs = tuple(float(v) for v in (np.arange(count) - (count - 1) / 2.0) * spacing)
     harp = None
@@ -459,7 +493,7 @@ def _row(r: Table, index: int, length: float) -> StrandRow:
             idx = tuple(k - 1 for k in raw)
             d.raw("count", None)
         else:
-            idx = (d.integer("count", low=1),)  # resolved below, inner strands first
+            idx = (d.integer("count", low=1, high=200),)  # resolved below, inner strands first
             idx = ("count", idx[0])  # type: ignore[assignment]
         debonds.append((idx, left, right, d.field("count")))
         d.done()
@@ -513,7 +547,7 @@ def _grid_rows(g: Table, first_index: int) -> list[StrandRow]:
         to_internal(v, "length", field=f"{g.field('positions')}[{i}]", file=g.file)
         for i, v in enumerate(raw_x)
     ]
-    count = g.integer("count", low=1)
+    count = g.integer("count", low=1, high=2000)
     fill = g.string("fill", "bottom-up", choices=("bottom-up", "given"))
     if fill == "given":
         raw = g.raw("order", expected="a list of [row, position] pairs (1-based)")
@@ -659,6 +693,14 @@ def load_job(path: str | Path) -> Job:
     if not isinstance(lib_raw, list) or not all(isinstance(p, str) for p in lib_raw):
         raise job.error("section_libraries", "a list of folder paths (strings)")
     libs = tuple(str(path.parent / p) if not Path(p).is_absolute() else p for p in lib_raw)
+    for i, folder in enumerate(libs):
+        if not Path(folder).is_dir():
+            raise InputError(
+                "an existing folder of section files",
+                file=file,
+                field=f"job.section_libraries[{i}]",
+                got=f"no folder {folder}",
+            )
     job.done()
 
     g = top.table("girder")
@@ -672,6 +714,12 @@ def load_job(path: str | Path) -> Job:
         )
     if not 1000.0 <= length <= 100_000.0:
         raise g.error("length", "a girder length from 1 m to 100 m (3.3 to 330 ft)")
+    if span < 0.5 * length:
+        raise g.error(
+            "span",
+            "a design span of at least half the girder length (bearings near the ends)",
+            f"{span / 304.8:.4g} ft on a {length / 304.8:.4g} ft girder",
+        )
     spacing = g.quantity("spacing", "length", None, positive=True)
     position = g.string("position", "interior", choices=("interior", "exterior"))
     gc = g.table("concrete")
@@ -716,6 +764,12 @@ def load_job(path: str | Path) -> Job:
         )
     lt_default = 60.0 * strand.diameter
     lt = st.quantity("transfer_length", "length", lt_default, positive=True)
+    if lt >= length / 2.0:
+        raise st.error(
+            "transfer_length",
+            "a transfer length shorter than half the girder",
+            f"{lt / 304.8:.3g} ft",
+        )
     lt_source = (
         "AASHTO LRFD 9th Ed. (2020) 5.9.4.3.1 (60 d_b)" if lt == lt_default else "given in the job"
     )
@@ -869,6 +923,13 @@ def load_job(path: str | Path) -> Job:
         ref = lim.string("file")
         lim.done()
         lpath = (path.parent / ref) if not Path(ref).is_absolute() else Path(ref)
+        if not lpath.is_file():
+            raise InputError(
+                "the path of a limit-set file, relative to the job file",
+                file=file,
+                field="limits.file",
+                got=f"no file {lpath}" if not lpath.exists() else f"{lpath} is not a file",
+            )
         lt_top = Table(read_toml(lpath), file=str(lpath))
         limits = read_limits(lt_top)
     else:

@@ -29,6 +29,10 @@ def read_toml(path: str | Path) -> dict[str, Any]:
         raise InputError("a TOML file", file=str(p), got="a directory") from None
     except OSError as exc:
         raise InputError("a readable file", file=str(p), got=exc.strerror or "unreadable") from None
+    except ValueError:
+        raise InputError(
+            "a valid file path", file=repr(str(p)), got="a path with a NUL character"
+        ) from None
     try:
         text = raw.decode("utf-8")
     except UnicodeDecodeError as exc:
@@ -41,6 +45,138 @@ def read_toml(path: str | Path) -> dict[str, Any]:
         return tomllib.loads(text)
     except tomllib.TOMLDecodeError as exc:
         raise InputError("valid TOML", file=str(p), got=str(exc)) from None
+
+
+#: Every key name the job-file and library readers use anywhere: an unknown key of a table that
+#: is one of these is not taken for a misspelling of a missing one (e.g. `fci` for `fc`).
+KNOWN_KEYS: frozenset[str] = frozenset(
+    [
+        "K1",
+        "anchor_set",
+        "area",
+        "at",
+        "cap",
+        "coefficient",
+        "combinations",
+        "compression",
+        "concrete",
+        "count",
+        "dead",
+        "debond",
+        "deck",
+        "deck_placement",
+        "deck_top",
+        "description",
+        "design",
+        "detailing",
+        "diameter",
+        "diaphragms",
+        "dimensions",
+        "distribution_factor",
+        "duct_diameter",
+        "dynamic_factor",
+        "effective_width",
+        "end_height",
+        "end_spacing",
+        "engineer",
+        "exponent",
+        "family",
+        "fc",
+        "fci",
+        "file",
+        "fill",
+        "final",
+        "fpu",
+        "fpy",
+        "friction",
+        "girder",
+        "girder_bottom",
+        "girder_top",
+        "girders",
+        "grid",
+        "handling",
+        "harp",
+        "haunch",
+        "haunch_in_stiffness",
+        "haunch_width",
+        "height",
+        "heights",
+        "hold_down",
+        "hold_downs",
+        "impact",
+        "inflection",
+        "jacking",
+        "jacking_stress",
+        "job",
+        "left",
+        "length",
+        "library",
+        "lift_point",
+        "limits",
+        "live",
+        "loads",
+        "long_term",
+        "long_term_to_deck",
+        "losses",
+        "max_share_row",
+        "max_share_total",
+        "max_terminations_count",
+        "max_terminations_share",
+        "method",
+        "model",
+        "modulus",
+        "modulus_at_transfer",
+        "modulus_unit_weight",
+        "moment_midspan",
+        "moments",
+        "mu",
+        "name",
+        "note",
+        "notes",
+        "order",
+        "other_noncomposite",
+        "overhang",
+        "owner",
+        "points",
+        "position",
+        "positions",
+        "project",
+        "published",
+        "relative_humidity",
+        "relaxation",
+        "right",
+        "root_unit",
+        "rows",
+        "section",
+        "section_libraries",
+        "service_i",
+        "service_iii",
+        "service_permanent",
+        "set",
+        "skew_degrees",
+        "source",
+        "spacing",
+        "span",
+        "stations",
+        "strand",
+        "strands",
+        "stress_before_transfer",
+        "superimposed_dead",
+        "tendons",
+        "tension",
+        "thickness",
+        "time",
+        "title",
+        "transfer",
+        "transfer_length",
+        "tributary_width",
+        "unit_weight",
+        "units",
+        "wearing_surface",
+        "weight",
+        "wobble",
+    ]
+)
 
 
 def _path(prefix: str, key: str | int) -> str:
@@ -64,8 +200,21 @@ class Table:
         return _path(self.path, key)
 
     def error(self, key: str, expected: str, got: str = "") -> InputError:
-        """Build an InputError for a key of this table."""
+        """Build an InputError for a key of this table.
+
+        When the key is absent and the table holds a similar key that nothing has read, the
+        message asks whether that one is a misspelling of it.
+        """
+        if key not in self.data:
+            near = self._misspelling_of(key)
+            if near:
+                got = (got + "; " if got else "") + f"is '{near}' a misspelling of it?"
         return InputError(expected, file=self.file, field=self.field(key), got=got)
+
+    def _misspelling_of(self, key: str) -> str | None:
+        unused = [k for k in self.data if k not in self._used and k != key and k not in KNOWN_KEYS]
+        near = difflib.get_close_matches(key, unused, n=1, cutoff=0.6)
+        return near[0] if near else None
 
     def has(self, key: str) -> bool:
         """Whether the key is present (does not mark it used)."""
@@ -76,14 +225,12 @@ class Table:
         self._used.add(key)
         if key not in self.data:
             if default is ...:
-                near = difflib.get_close_matches(
-                    key, [k for k in self.data if k != key], n=1, cutoff=0.6
-                )
-                if near:
+                near = self._misspelling_of(key)
+                if near is not None:
                     raise InputError(
-                        f"the key '{key}' (did you mean '{key}'?)",
+                        f"a known key (did you mean '{key}'?)",
                         file=self.file,
-                        field=self.field(near[0]),
+                        field=self.field(near),
                         got="an unknown key",
                     )
                 raise self.error(key, expected, "nothing (the field is missing)")
@@ -144,22 +291,29 @@ class Table:
         value = self.raw(key, default, expected="a number")
         if isinstance(value, bool) or not isinstance(value, int | float):
             raise self.error(key, "a number", repr(value))
-        v = float(value)
+        try:
+            v = float(value)
+        except OverflowError:
+            v = math.inf
         if not math.isfinite(v):
-            raise self.error(key, "a finite number", repr(value))
+            raise self.error(key, "a finite number", "a number too large")
         if (low is not None and v < low) or (high is not None and v > high):
             lo = "-inf" if low is None else f"{low:g}"
             hi = "inf" if high is None else f"{high:g}"
             raise self.error(key, f"a number from {lo} to {hi}", f"{v:g}")
         return v
 
-    def integer(self, key: str, default: Any = ..., *, low: int | None = None) -> int:
+    def integer(
+        self, key: str, default: Any = ..., *, low: int | None = None, high: int | None = None
+    ) -> int:
         """Return an integer, optionally at least ``low``."""
         value = self.raw(key, default, expected="a whole number")
         if isinstance(value, bool) or not isinstance(value, int):
             raise self.error(key, "a whole number", repr(value))
         if low is not None and value < low:
             raise self.error(key, f"a whole number of at least {low}", str(value))
+        if high is not None and value > high:
+            raise self.error(key, f"a whole number of at most {high}", str(value)[:20])
         return value
 
     def string(

@@ -118,12 +118,30 @@ def parse_quantity(value: Any, kind: str, *, field: str = "", file: str = "") ->
         text = value.strip()
         if not text:
             raise InputError(expected, file=file, field=field, got="an empty string")
+        if (
+            not _QUANTITY_RE.match(text)
+            and text.lower() not in ("nan", "inf")
+            and not (re.match(r"^\s*[-+]?(nan|inf)\b", text, re.I))
+        ):
+            raise InputError(
+                expected + " (one number, then its unit)",
+                file=file,
+                field=field,
+                got=_describe(value),
+            )
         try:
             q = ureg.Quantity(text)
         except Exception:  # pint raises many types for malformed text
             raise InputError(expected, file=file, field=field, got=_describe(value)) from None
-        if not isinstance(q, ureg.Quantity):  # plain number inside a string
-            q = ureg.Quantity(float(q), "")
+        try:
+            if not isinstance(q, ureg.Quantity):  # plain number inside a string
+                q = ureg.Quantity(float(q), "")
+            else:
+                q = ureg.Quantity(float(q.magnitude), q.units)
+        except OverflowError:
+            raise InputError(
+                f"a finite value ({k.words})", file=file, field=field, got="a number too large"
+            ) from None
         if kind != "dimensionless" and q.dimensionless:
             raise InputError(expected, file=file, field=field, got=f"{_describe(value)} (no unit)")
     if kind == "unit_weight" and q.check("[mass] / [length] ** 3"):
@@ -132,11 +150,28 @@ def parse_quantity(value: Any, kind: str, *, field: str = "", file: str = "") ->
     if q.dimensionality != target.dimensionality:
         got = f"{_describe(value)} (wrong dimension)"
         raise InputError(expected, file=file, field=field, got=got)
-    magnitude = float(q.to(target).magnitude)
+    try:
+        magnitude = float(q.to(target).magnitude)
+        if not math.isfinite(magnitude):
+            raise OverflowError
+        q = q.to(target)
+        q = ureg.Quantity(magnitude, target)
+    except OverflowError:
+        magnitude = math.inf
     if not math.isfinite(magnitude):
-        raise InputError(f"a finite {k.words}", file=file, field=field, got=_describe(value))
+        raise InputError(f"a finite value: {k.words}", file=file, field=field, got=_describe(value))
     return q
 
+
+#: What a job-file quantity looks like: a number, then a unit expression made of unit names,
+#: products and quotients, and integer powers (``"54 in"``, ``"0.153 in^2"``, ``"1.2 kip/ft"``,
+#: ``"0.0002 /ft"``, ``"150 lbf/ft**3"``). Anything else (``"7 1/2 in"``, ``"81 ft + 12 in"``)
+#: is refused rather than guessed at.
+_UNIT_NAME = r"[A-Za-z°µ%_][A-Za-z°µ%_0-9]*?(?:\s*(?:\^|\*\*)\s*[-+]?\d+)?"
+_QUANTITY_RE = re.compile(
+    r"^\s*[-+]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][-+]?\d+)?\s*"
+    rf"(?:/?\s*{_UNIT_NAME}(?:\s*(?:[*/·]|\s)\s*{_UNIT_NAME})*)?\s*$"
+)
 
 _NUMBER_UNIT = re.compile(r"^\s*([-+]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][-+]?\d+)?)\s*(\S.*?)\s*$")
 
@@ -212,7 +247,7 @@ def to_internal(value: Any, kind: str, *, field: str = "", file: str = "") -> fl
     is cached, so pint parses each distinct unit once per process; anything else (and every
     error) goes through :func:`parse_quantity`.
     """
-    if isinstance(value, str) and kind != "dimensionless":
+    if isinstance(value, str) and kind != "dimensionless" and _QUANTITY_RE.match(value):
         m = _NUMBER_UNIT.match(value)
         if m is not None:
             factor = _unit_factor(m.group(2), kind)
@@ -221,7 +256,7 @@ def to_internal(value: Any, kind: str, *, field: str = "", file: str = "") -> fl
                 if math.isfinite(result):
                     return result
     q = parse_quantity(value, kind, field=field, file=file)
-    return float(q.to(KINDS[kind].internal or "dimensionless").magnitude)
+    return float(q.to(KINDS[kind].internal or "dimensionless").magnitude)  # finite: checked
 
 
 # --------------------------------------------------------------------------------------------

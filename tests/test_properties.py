@@ -27,6 +27,7 @@ from shapely.geometry.polygon import orient
 
 from prestress.analysis import run_check
 from prestress.cli import main
+from prestress.errors import InputError
 from prestress.jobfile import load_job
 from prestress.paths import shipped_sections_dir
 from prestress.present.jsonout import to_dict
@@ -393,20 +394,21 @@ def test_fast_unit_parsing_agrees_with_pint(number: float, unit: str) -> None:
     assert to_internal(text, kind) == pytest.approx(ref, rel=1e-12, abs=1e-300)
 
 
-@pytest.mark.xfail(
-    strict=True,
-    reason="bug: the fast path of prestress.units.to_internal splits '<number> <rest>' and "
-    "returns number x (1 rest), so '81 ft + 12 in' reads as 81 x (1 ft + 12 in) = 162 ft "
-    "(pint: 82 ft) and '10^3 mm' as 10 mm (pint: 1000 mm), silently",
-)
 @pytest.mark.parametrize(
     ("text", "kind"),
-    [("81 ft + 12 in", "length"), ("82 ft - 6 in", "length"), ("10^3 mm", "length")],
+    [
+        ("81 ft + 12 in", "length"),
+        ("82 ft - 6 in", "length"),
+        ("10^3 mm", "length"),
+        ("7 1/2 in", "length"),
+        ("79 ft 6 in", "length"),
+    ],
 )
-def test_compound_quantities_are_read_as_pint_reads_them(text: str, kind: str) -> None:
-    """A quantity written as an expression pint accepts must mean what pint says it means."""
-    ref = parse_quantity(text, kind).to("mm").magnitude
-    assert to_internal(text, kind) == pytest.approx(ref, rel=1e-12)
+def test_compound_quantities_are_refused(text: str, kind: str) -> None:
+    """A quantity is one number and its unit: sums, fractions and bare powers of ten are
+    refused with a message, never guessed at (pint would read "7 1/2 in" as 3.5 in)."""
+    with pytest.raises(InputError, match="one number, then its unit"):
+        to_internal(text, kind, field="deck.thickness", file="job.toml")
 
 
 # ------------------------------------------------------------------------------------------
