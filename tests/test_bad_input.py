@@ -78,7 +78,12 @@ CASES = [
     ),
     ("unit choice", 'units = "US"', 'units = "imperial"', ["job.units", "one of"]),
     ("malformed toml", "[girder]\n", "[girder\n", ["valid TOML"]),
-    ("limits file missing", "aashto-lrfd-9th-service.toml", "nope.toml", ["limits.file", "no file"]),
+    (
+        "limits file missing",
+        "aashto-lrfd-9th-service.toml",
+        "nope.toml",
+        ["limits.file", "no file"],
+    ),
 ]
 
 

@@ -131,8 +131,12 @@ def test_json_layout(us_json: dict) -> None:
                 assert fiber["stress"]["unit"] == "ksi"
                 assert isinstance(fiber["ok"], bool)
     service = {s["name"]: s for s in us_json["stages"][3]["stations"]}
-    tenths = ["left bearing", *[f"0.{i} span" for i in (1, 2, 3, 4, 6, 7, 8, 9)], "midspan",
-              "right bearing"]
+    tenths = [
+        "left bearing",
+        *[f"0.{i} span" for i in (1, 2, 3, 4, 6, 7, 8, 9)],
+        "midspan",
+        "right bearing",
+    ]
     assert set(tenths) <= set(service)  # tenth points of the design span
     assert {"left lt", "right lt"} <= set(service)  # transfer-length points
     assert set(service["midspan"]["fibers"]) == {"girder_bottom", "girder_top", "deck_top"}

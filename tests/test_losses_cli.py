@@ -116,8 +116,10 @@ def test_transformed_basis(tmp_path: Path) -> None:
     top = -P / sec.area + (P * e - M) * (sec.fibers["girder_top"] - sec.yb) / sec.I
     assert st.fibers["girder_top"].stress == pytest.approx(top, rel=1e-9)
     # the two bases agree closely at transfer (the usual result; a few percent at most)
-    g0 = next(s for s in gross.stages[0].stations if s.name == "midspan").fibers[
-        "girder_bottom"
-    ].stress
+    g0 = (
+        next(s for s in gross.stages[0].stations if s.name == "midspan")
+        .fibers["girder_bottom"]
+        .stress
+    )
     t0 = st.fibers["girder_bottom"].stress
     assert t0 == pytest.approx(g0, rel=0.03)

@@ -12,9 +12,17 @@ from prestress.sections import properties
 from prestress.sections.families import build_polygon
 from tests.conftest import US_EXAMPLE
 
-STANDARD = ["AASHTO-Type-I", "AASHTO-Type-II", "AASHTO-Type-III", "AASHTO-Type-IV",
-            "AASHTO-Type-V", "AASHTO-Type-VI", "AASHTO-PCI-BT-54", "AASHTO-PCI-BT-63",
-            "AASHTO-PCI-BT-72"]
+STANDARD = [
+    "AASHTO-Type-I",
+    "AASHTO-Type-II",
+    "AASHTO-Type-III",
+    "AASHTO-Type-IV",
+    "AASHTO-Type-V",
+    "AASHTO-Type-VI",
+    "AASHTO-PCI-BT-54",
+    "AASHTO-PCI-BT-63",
+    "AASHTO-PCI-BT-72",
+]
 
 
 def test_sections_lists_the_whole_library(capsys) -> None:
@@ -23,7 +31,8 @@ def test_sections_lists_the_whole_library(capsys) -> None:
     names = {s["name"] for s in data["sections"]}
     assert set(STANDARD) <= names
     assert {"box_beam", "voided_slab", "u_beam", "inverted_tee", "rectangle", "polygon"} <= {
-        s["family"] for s in data["sections"]}
+        s["family"] for s in data["sections"]
+    }
     bt72 = next(s for s in data["sections"] if s["name"] == "AASHTO-PCI-BT-72")
     # weight = 767 in² / 144 × 0.150 kcf = 0.7990 kip/ft
     assert bt72["weight"]["value"] == pytest.approx(767 / 144 * 0.150, rel=1e-6)
@@ -56,8 +65,23 @@ def test_section_show_reproduces_published_properties(capsys, name: str) -> None
 def test_section_show_with_deck_by_hand(capsys) -> None:
     """Composite AASHTO Type IV with an 8 in × 96 in deck at n = 0.8, by the parallel-axis
     theorem worked here (Type IV: A 789 in², yb 24.73 in, I 260,741 in⁴ as computed)."""
-    assert main(["section", "show", "AASHTO-Type-IV", "--deck-thickness", "8 in", "--deck-width",
-                 "96 in", "--modular-ratio", "0.8", "--json"]) == 0
+    assert (
+        main(
+            [
+                "section",
+                "show",
+                "AASHTO-Type-IV",
+                "--deck-thickness",
+                "8 in",
+                "--deck-width",
+                "96 in",
+                "--modular-ratio",
+                "0.8",
+                "--json",
+            ]
+        )
+        == 0
+    )
     c = json.loads(capsys.readouterr().out)["sections"][0]
     g = c["gross"]
     A, yb, I = g["area"]["value"], g["yb"]["value"], g["Ix"]["value"]
@@ -80,8 +104,22 @@ def test_section_show_console_and_errors(capsys) -> None:
     assert "NAME" in capsys.readouterr().err
     assert main(["section", "show", "AASHTO-Type-IV", "--deck-thickness", "8 in"]) == 2
     assert "--deck-width" in capsys.readouterr().err
-    assert main(["section", "show", "AASHTO-Type-IV", "--deck-thickness", "8", "--deck-width",
-                 "96 in", "--modular-ratio", "0.8"]) == 2
+    assert (
+        main(
+            [
+                "section",
+                "show",
+                "AASHTO-Type-IV",
+                "--deck-thickness",
+                "8",
+                "--deck-width",
+                "96 in",
+                "--modular-ratio",
+                "0.8",
+            ]
+        )
+        == 2
+    )
     assert "--deck-thickness" in capsys.readouterr().err
 
 
@@ -113,8 +151,12 @@ def test_cache_is_used_and_corrupt_entries_are_recomputed(monkeypatch: pytest.Mo
     monkeypatch.setattr(properties, "_compute", boom)
     assert properties.gross_properties(poly) == first  # served from the cache
     monkeypatch.undo()
-    for garbage in ("{not json", json.dumps({"key": "other", "properties": {}}),
-                    json.dumps({"key": key, "properties": {"area": -1}}), ""):
+    for garbage in (
+        "{not json",
+        json.dumps({"key": "other", "properties": {}}),
+        json.dumps({"key": key, "properties": {"area": -1}}),
+        "",
+    ):
         path.write_text(garbage, encoding="utf-8")
         assert properties.gross_properties(poly) == first  # recomputed, not trusted
         assert json.loads(path.read_text(encoding="utf-8"))["key"] == key  # and rewritten

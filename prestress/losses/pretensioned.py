@@ -51,8 +51,11 @@ def elastic_shortening_gross(girder: Girder) -> tuple[float, dict[str, tuple[flo
     if job.post_tensioned:
         from prestress.errors import InputError
 
-        raise InputError("a pretensioned girder for this method (post-tensioned girders: "
-                         "method = \"given\")", file=job.file, field="losses.method")
+        raise InputError(
+            'a pretensioned girder for this method (post-tensioned girders: method = "given")',
+            file=job.file,
+            field="losses.method",
+        )
     g = girder.gross
     e_m = girder.eccentricity_gross
     M_g = girder.self_weight * job.length**2 / 8.0  # girder on its own length, ends supported

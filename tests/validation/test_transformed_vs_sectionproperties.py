@@ -18,9 +18,14 @@ from prestress.sections.properties import gross_properties
 
 IN = 25.4
 DIMS = {
-    "depth": "54 in", "top_flange_width": "20 in", "top_flange_thickness": "8 in",
-    "top_tapers": [["6 in", "6 in"]], "web_width": "8 in", "bottom_flange_width": "26 in",
-    "bottom_flange_thickness": "8 in", "bottom_tapers": [["9 in", "9 in"]],
+    "depth": "54 in",
+    "top_flange_width": "20 in",
+    "top_flange_thickness": "8 in",
+    "top_tapers": [["6 in", "6 in"]],
+    "web_width": "8 in",
+    "bottom_flange_width": "26 in",
+    "bottom_flange_thickness": "8 in",
+    "bottom_tapers": [["9 in", "9 in"]],
 }
 STRANDS = [(x * 2 * IN, 2 * IN) for x in range(-5, 6)] + [(x * 2 * IN, 4 * IN) for x in (-2, 0, 2)]
 A_STRAND = 0.153 * IN**2
