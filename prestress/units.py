@@ -180,12 +180,11 @@ _FACTORS: dict[str, float] | None = None
 
 
 def _factor_cache_path():
-    from importlib.metadata import version
-
+    """The unit-factor table's file, keyed by the package's version (cleared with the cache)."""
     from prestress import __version__
     from prestress.paths import cache_dir
 
-    return cache_dir() / f"unit-factors-{__version__}-pint{version('pint')}.json"
+    return cache_dir() / f"unit-factors-{__version__}.json"
 
 
 def _load_factors() -> dict[str, float]:

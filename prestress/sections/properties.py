@@ -175,11 +175,13 @@ def gross_properties(
 
 
 def clear_cache() -> int:
-    """Delete every cached section analysis; return how many entries were removed."""
+    """Delete every cached section analysis (and the unit-factor table); return the count."""
     folder = cache_dir() / "sections"
     count = 0
     if folder.is_dir():
         for p in folder.glob("*.json"):
             p.unlink(missing_ok=True)
             count += 1
+    for p in cache_dir().glob("unit-factors-*.json"):
+        p.unlink(missing_ok=True)
     return count
