@@ -25,7 +25,7 @@ from prestress.sections.composite import (
     transformed_composite,
     transformed_girder,
 )
-from prestress.sections.properties import GrossProperties, gross_properties
+from prestress.sections.properties import GrossProperties, ResolvedSection
 from prestress.stages import ZoneStation, fiber_stress  # noqa: F401  (re-exported)
 
 SIGN_CONVENTION = "tension +, compression −"
@@ -39,7 +39,8 @@ class Girder:
         job: the job.
         section_name: the section's name.
         section_source: where the shape comes from.
-        polygon: the shapely polygon of the girder (mm).
+        outline: the girder's outline (mm) and gross properties, as resolved (``polygon``
+            gives the shapely polygon).
         gross: gross properties of the girder.
         girder_section: the non-composite section used for stresses (gross).
         composite_section: the composite section (deck transformed), or None without a deck.
@@ -52,7 +53,7 @@ class Girder:
     job: Job
     section_name: str
     section_source: str
-    polygon: object
+    outline: ResolvedSection
     gross: GrossProperties
     girder_section: AssembledSection
     composite_section: AssembledSection | None
@@ -66,6 +67,11 @@ class Girder:
     section_composite: AssembledSection | None = None
 
     @property
+    def polygon(self):
+        """The shapely polygon of the girder (mm)."""
+        return self.outline.polygon()
+
+    @property
     def eccentricity_gross(self) -> float:
         """Eccentricity of the strand centroid below the gross centroid (mm)."""
         return self.gross.yb - self.job.y_ps
@@ -77,14 +83,14 @@ class Girder:
 
 def resolve_girder(job: Job, *, cli_libraries: tuple[str, ...] = ()) -> Girder:
     """Find the job's section, build and check its geometry, and compute its properties."""
-    from prestress.sections.families import build_polygon
     from prestress.sections.library import load_library, search_folders
+    from prestress.sections.properties import resolve_definition
 
     notices: list[str] = []
     ref = job.section
     if ref.family is not None:
         assert ref.dimensions is not None
-        poly = build_polygon(
+        resolved = resolve_definition(
             ref.family, ref.dimensions, file=job.file, field="girder.section.dimensions"
         )
         name, source = ref.name, "defined in the job file"
@@ -92,12 +98,12 @@ def resolve_girder(job: Job, *, cli_libraries: tuple[str, ...] = ()) -> Girder:
         lib = load_library(search_folders(job.library_paths, cli_libraries))
         entry = lib.get(ref.name, file=job.file, field="girder.section")
         notices += [n for n in lib.notices if entry.name.lower() in n.lower()]
-        poly = build_polygon(
+        resolved = resolve_definition(
             entry.family, entry.dimensions, file=entry.file, field=f"{entry.field}.dimensions"
         )
         name, source = entry.name, entry.source
-    _check_strands_inside(job, poly)
-    gross = gross_properties(poly)
+    _check_strands_inside(job, resolved)
+    gross = resolved.gross
     girder_section = noncomposite(gross)
     comp = None
     n_deck = 1.0
@@ -136,7 +142,7 @@ def resolve_girder(job: Job, *, cli_libraries: tuple[str, ...] = ()) -> Girder:
         job=job,
         section_name=name,
         section_source=source,
-        polygon=poly,
+        outline=resolved,
         gross=gross,
         girder_section=girder_section,
         composite_section=comp,
@@ -217,20 +223,50 @@ INCH2 = 25.4**2
 INCH4 = 25.4**4
 
 
-def _check_strands_inside(job: Job, poly) -> None:  # type: ignore[no-untyped-def]
-    """Every strand must lie inside the concrete with at least its own radius of cover.
+def _inside(rings: list[np.ndarray], x: float, y: float) -> bool:
+    """Whether a point lies inside a polygon with holes (even-odd ray casting)."""
+    inside = False
+    for ring in rings:
+        xs, ys = ring[:-1, 0], ring[:-1, 1]
+        x2, y2 = ring[1:, 0], ring[1:, 1]
+        crosses = (ys > y) != (y2 > y)
+        with np.errstate(divide="ignore", invalid="ignore"):
+            xi = xs + (y - ys) * (x2 - xs) / (y2 - ys)
+        inside ^= bool(np.count_nonzero(crosses & (x < xi)) % 2)
+    return inside
 
-    Checked at midlength and, for harped rows, at the girder ends too.
+
+def _distance_to_edges(rings: list[np.ndarray], x: float, y: float) -> float:
+    """Shortest distance from a point to the polygon's edges (mm)."""
+    best = np.inf
+    for ring in rings:
+        a, b = ring[:-1], ring[1:]
+        d = b - a
+        L2 = np.maximum((d**2).sum(axis=1), 1e-30)
+        t = np.clip(((x - a[:, 0]) * d[:, 0] + (y - a[:, 1]) * d[:, 1]) / L2, 0.0, 1.0)
+        px, py = a[:, 0] + t * d[:, 0], a[:, 1] + t * d[:, 1]
+        best = min(best, float(np.sqrt((px - x) ** 2 + (py - y) ** 2).min()))
+    return best
+
+
+def _check_strands_inside(job: Job, outline: ResolvedSection) -> None:
+    """Every strand (and duct) must lie inside the concrete with its radius of cover.
+
+    Checked at midlength and, for harped rows, at the girder ends too; tendons along their
+    profile on the girder's axis.
     """
-    from shapely.geometry import Point
+    rings = [np.asarray(outline.exterior, dtype=float)]
+    rings += [np.asarray(h, dtype=float) for h in outline.holes]
+
+    def ok(x: float, y: float, r: float) -> bool:
+        return _inside(rings, x, y) and _distance_to_edges(rings, x, y) >= r
 
     for i, t in enumerate(job.tendons):
         prof = t.profile()
         xs = np.linspace(prof.x_start_mm, prof.x_end_mm, 41)
         r = max(t.duct_diameter, job.strand.diameter) / 2.0
         for y in np.asarray(prof.height(xs)):
-            p = Point(0.0, float(y))
-            if not poly.contains(p) or poly.exterior.distance(p) < r:
+            if not ok(0.0, float(y), r):
                 raise InputError(
                     "a tendon profile inside the concrete with the duct's radius of cover",
                     file=job.file,
@@ -242,12 +278,7 @@ def _check_strands_inside(job: Job, poly) -> None:  # type: ignore[no-untyped-de
         if row.harp is not None:  # at the ends: one column on the axis
             points += [(0.0, row.harp[0] - k * row.harp[2]) for k in range(row.count)]
         for x, y in points:
-            p = Point(float(x), y)
-            if (
-                not poly.contains(p)
-                or poly.exterior.distance(p) < job.strand.diameter / 2.0
-                or any(h.distance(p) < job.strand.diameter / 2.0 for h in poly.interiors)
-            ):
+            if not ok(x, y, job.strand.diameter / 2.0):
                 raise InputError(
                     "every strand inside the concrete (row width (count − 1) × spacing must fit "
                     "the section at that height)",

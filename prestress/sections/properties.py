@@ -185,3 +185,75 @@ def clear_cache() -> int:
     for p in cache_dir().glob("unit-factors-*.json"):
         p.unlink(missing_ok=True)
     return count
+
+
+# ------------------------------------------------------------------------------------------
+# Resolved definitions: family + raw dimensions → outline and properties, cached together
+
+
+@dataclass(frozen=True)
+class ResolvedSection:
+    """A section definition resolved once: its outline (mm) and gross properties.
+
+    Attributes:
+        exterior: the outer ring, counter-clockwise, as (x, y) pairs (mm).
+        holes: the voids, each a ring of (x, y) pairs (mm).
+        gross: the gross properties.
+    """
+
+    exterior: tuple[tuple[float, float], ...]
+    holes: tuple[tuple[tuple[float, float], ...], ...]
+    gross: GrossProperties
+
+    def polygon(self):
+        """The shapely polygon of the outline."""
+        from shapely.geometry import Polygon
+
+        return Polygon(self.exterior, self.holes)
+
+
+def resolve_definition(
+    family: str, dimensions: dict, *, file: str = "", field: str = ""
+) -> ResolvedSection:
+    """Outline and gross properties of a family's section, from the cache when possible.
+
+    The key is a hash of the family, the raw dimensions as written and the package version,
+    so a warm start neither builds the polygon (shapely) nor analyses it (sectionproperties).
+    Errors in the dimensions are found when the definition is first built (then cached only
+    if valid).
+    """
+    text = json.dumps(
+        [CACHE_SCHEMA, __version__, "definition", family, dimensions], sort_keys=True, default=str
+    )
+    key = hashlib.sha256(text.encode()).hexdigest()
+    path = cache_dir() / "sections" / f"def-{key}.json"
+    try:
+        data = json.loads(path.read_text(encoding="utf-8"))
+        if data.get("key") == key:
+            g = GrossProperties(**data["gross"])
+            ext = tuple((float(x), float(y)) for x, y in data["exterior"])
+            holes = tuple(tuple((float(x), float(y)) for x, y in h) for h in data["holes"])
+            values = [v for v in asdict(g).values() if v is not None]
+            if len(ext) >= 4 and all(math.isfinite(v) for v in values) and g.area > 0:
+                return ResolvedSection(ext, holes, g)
+    except (OSError, ValueError, TypeError, KeyError, AttributeError):
+        pass
+    from prestress.sections.families import build_polygon
+
+    poly = build_polygon(family, dimensions, file=file, field=field)
+    g = gross_properties(poly)
+    res = ResolvedSection(
+        tuple((float(x), float(y)) for x, y in poly.exterior.coords),
+        tuple(tuple((float(x), float(y)) for x, y in r.coords) for r in poly.interiors),
+        g,
+    )
+    try:
+        write_atomic(
+            path,
+            json.dumps(
+                {"key": key, "gross": asdict(g), "exterior": res.exterior, "holes": res.holes}
+            ),
+        )
+    except OSError:
+        pass
+    return res
