@@ -4,12 +4,13 @@ from __future__ import annotations
 
 import contextlib
 import os
-import tempfile
 from pathlib import Path
 
 
 def write_atomic(path: str | Path, data: str | bytes) -> None:
     """Write ``data`` to ``path`` atomically (readers see the old file or the new, never half)."""
+    import tempfile  # imported here: it costs start-up time on paths that write nothing
+
     target = Path(path)
     target.parent.mkdir(parents=True, exist_ok=True)
     mode = "wb" if isinstance(data, bytes) else "w"
