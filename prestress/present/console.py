@@ -272,14 +272,14 @@ def stage_table(stage: StageResult, number: int, system: str) -> Group:
         gov_text = SHORT_FIBER[gov[0]] if gov else "—"
         use = "—" if gov is None else (">1" if gov[1] == float("inf") else f"{gov[1]:.2f}")
         t.add_row(
-            s.name,
-            fmt(s.x_bearing if is_service else s.x, system, "position", 2),
-            fmt(s.force, system, "force", 1),
-            fmt(s.eccentricity, system, "dimension", 2),
-            fmt(s.moment, system, "moment", 1),
+            Text(s.name),
+            Text(fmt(s.x_bearing if is_service else s.x, system, "position", 2)),
+            Text(fmt(s.force, system, "force", 1)),
+            Text(fmt(s.eccentricity, system, "dimension", 2)),
+            Text(fmt(s.moment, system, "moment", 1)),
             *[_cell(s.fibers.get(f), system) for f in fibers],
-            gov_text,
-            use,
+            Text(gov_text),
+            Text(use),
             PASS if s.ok else FAIL,
         )
     lines = []
@@ -376,13 +376,13 @@ def make_console() -> Console:
     import sys
 
     if sys.stdout.isatty():
-        return Console(highlight=False)
+        return Console(highlight=False, emoji=False)
     try:
         width = int(os.environ.get("COLUMNS", "120"))
     except ValueError:
         width = 120
     color = "auto" if os.environ.get("FORCE_COLOR") else None
-    return Console(width=max(60, width), highlight=False, color_system=color)
+    return Console(width=max(60, width), highlight=False, color_system=color, emoji=False)
 
 
 def render(
