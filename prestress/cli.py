@@ -36,7 +36,14 @@ def _add_common(p: argparse.ArgumentParser) -> None:
     p.add_argument("--debug", action="store_true", help="show a traceback on errors")
 
 
-def build_parser() -> argparse.ArgumentParser:
+class _Skipped:
+    """Stands in for the parser of a command that is not being run (faster start-up)."""
+
+    def __getattr__(self, _name: str):
+        return lambda *a, **k: self
+
+
+def build_parser(only: str | None = None) -> argparse.ArgumentParser:
     """The argument parser of the ``prestress`` command."""
     parser = _Parser(
         prog="prestress",
@@ -44,7 +51,17 @@ def build_parser() -> argparse.ArgumentParser:
         "stage: section properties, losses, fiber stresses against your limits.",
     )
     parser.add_argument("--version", action="version", version=f"prestress {__version__}")
-    sub = parser.add_subparsers(dest="command", metavar="COMMAND", parser_class=_Parser)
+    real = parser.add_subparsers(dest="command", metavar="COMMAND", parser_class=_Parser)
+
+    class _Sub:
+        """Adds a command's parser, or skips it when another command is being run."""
+
+        def add_parser(self, name: str, **kw):
+            if only is not None and name != only:
+                return _Skipped()
+            return real.add_parser(name, **kw)
+
+    sub = _Sub()
 
     p = sub.add_parser("check", help="check a job: properties, losses, stresses per stage")
     p.add_argument("job", help="the job file (TOML)")
@@ -611,8 +628,10 @@ COMMANDS = {
 
 def main(argv: Sequence[str] | None = None) -> int:
     """Entry point of the ``prestress`` command."""
-    parser = build_parser()
-    args = parser.parse_args(argv)
+    args_list = list(sys.argv[1:] if argv is None else argv)
+    first = args_list[0] if args_list else None
+    parser = build_parser(first if first in COMMANDS else None)
+    args = parser.parse_args(args_list)
     if not args.command:
         parser.print_help()
         return EXIT_INPUT

@@ -10,7 +10,6 @@ Writes are atomic (temporary file, then rename), so concurrent runs cannot corru
 
 from __future__ import annotations
 
-import hashlib
 import json
 import math
 from dataclasses import asdict, dataclass
@@ -88,6 +87,8 @@ class GrossProperties:
 
 
 def _key(poly: Polygon, analysis: str) -> str:
+    import hashlib
+
     coords = [[round(x, 6), round(y, 6)] for x, y in poly.exterior.coords]
     holes = [[[round(x, 6), round(y, 6)] for x, y in r.coords] for r in poly.interiors]
     text = json.dumps([CACHE_SCHEMA, __version__, analysis, coords, holes])
@@ -222,11 +223,14 @@ def resolve_definition(
     Errors in the dimensions are found when the definition is first built (then cached only
     if valid).
     """
+    import zlib  # cheaper to import than hashlib; the full text is compared on reading
+
     text = json.dumps(
         [CACHE_SCHEMA, __version__, "definition", family, dimensions], sort_keys=True, default=str
     )
-    key = hashlib.sha256(text.encode()).hexdigest()
-    path = cache_dir() / "sections" / f"def-{key}.json"
+    key = text
+    raw = text.encode()
+    path = cache_dir() / "sections" / f"def-{zlib.crc32(raw):08x}{zlib.adler32(raw):08x}.json"
     try:
         data = json.loads(path.read_text(encoding="utf-8"))
         if data.get("key") == key:
