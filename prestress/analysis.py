@@ -488,6 +488,56 @@ def zone_at(
     return tuple(zone)
 
 
+def development_length_notes(girder: Girder, losses: LossBreakdown) -> list[str]:
+    """The development length of the strands (AASHTO LRFD 5.9.4.3.2), reported as notes.
+
+    fps at midspan for rectangular behaviour of the composite section (the deck as the
+    compression flange; the girder's top flange without a deck), Eq. 5.6.3.1.1-1.
+    """
+    from prestress.codes.aashto_lrfd import materials as m
+    from prestress.units import INCH_MM, KSI_MPA
+
+    job = girder.job
+    if job.post_tensioned or job.layout is None:
+        return []
+    g = girder.gross
+    if job.deck is not None:
+        top = g.height + job.deck.haunch + job.deck.thickness
+        b, fc = job.deck.effective_width, job.deck.concrete.fc
+    else:
+        top, b, fc = g.height, g.top_width, job.girder_concrete.fc
+    d_p = top - job.y_ps
+    A = job.A_ps / INCH_MM**2
+    fps, c = m.f_ps_rectangular(
+        A,
+        job.strand.fpu / KSI_MPA,
+        job.strand.fpy / KSI_MPA,
+        d_p / INCH_MM,
+        b / INCH_MM,
+        fc / KSI_MPA,
+    )
+    fpe = losses.f_pe / KSI_MPA
+    depth_in = top / INCH_MM
+    out = []
+    for debonded in (False, True):
+        if debonded and not any(s.debonded for s in job.layout.sets):
+            continue
+        kappa = m.kappa_development(depth_in, debonded)
+        ld = m.l_d(kappa, fps, fpe, job.strand.diameter / INCH_MM)
+        kind = "debonded strands" if debonded else "bonded strands"
+        out.append(
+            f"development length of the {kind}: ld = {ld:.0f} in ({ld / 12:.1f} ft; "
+            f"AASHTO LRFD Eq. 5.9.4.3.2-1, κ = {kappa:g}, fps = {fps:.1f} ksi by Eq. "
+            f"5.6.3.1.1-1 at midspan, fpe = {fpe:.1f} ksi), from the end of bonding"
+        )
+    if job.deck is not None and c > job.deck.thickness / INCH_MM:
+        out.append(
+            "the neutral axis at nominal resistance lies below the deck (c = "
+            f"{c:.1f} in): fps assumed rectangular behaviour; check T-section behaviour"
+        )
+    return out
+
+
 def run_check(job: Job, *, cli_libraries: tuple[str, ...] = ()) -> CheckResult:
     """Run the whole check of a job: section, losses, stresses per stage, limits, zone."""
     from prestress.stages import stage_specs, stage_stresses, stations
@@ -564,6 +614,7 @@ def run_check(job: Job, *, cli_libraries: tuple[str, ...] = ()) -> CheckResult:
             )
         )
     zone = zone_at(girder, losses, all_st, raws)
+    notes += development_length_notes(girder, losses)
     if job.layout is not None:
         from prestress.layout import debonding_warnings
 

@@ -46,3 +46,53 @@ def f_r(f_c_ksi: float, lam: float = 1.0) -> float:
     if f_c_ksi <= 0:
         raise ValueError(f"f_c_ksi must be positive, got {f_c_ksi}")
     return 0.24 * lam * math.sqrt(f_c_ksi)
+
+
+def kappa_development(depth_in: float, debonded: bool) -> float:
+    """AASHTO LRFD 9th Ed. (2020) 5.9.4.3.2 and 5.9.4.3.3: κ of the development length.
+
+    κ = 1.0 for pretensioned members up to 24 in deep, 1.6 deeper; 2.0 for debonded strands
+    (values from memory).
+    """
+    if debonded:
+        return 2.0
+    return 1.0 if depth_in <= 24.0 else 1.6
+
+
+def l_d(kappa: float, f_ps: float, f_pe: float, d_b: float) -> float:
+    """AASHTO LRFD 9th Ed. (2020) Eq. 5.9.4.3.2-1: development length ld ≥ κ (fps − 2/3 fpe) db.
+
+    Args:
+        kappa: κ (see :func:`kappa_development`).
+        f_ps: average stress in the strand at nominal flexural resistance, ksi.
+        f_pe: effective stress in the strand after losses, ksi.
+        d_b: nominal strand diameter, in.
+
+    Returns:
+        ld in in.
+    """
+    if d_b <= 0 or kappa <= 0:
+        raise ValueError("d_b and kappa must be positive")
+    return kappa * (f_ps - 2.0 / 3.0 * f_pe) * d_b
+
+
+def beta_1(f_c_ksi: float) -> float:
+    """AASHTO LRFD 9th Ed. (2020) 5.6.2.2: stress-block factor β1 = 0.85 − 0.05 (f'c − 4) ≥ 0.65."""
+    return min(0.85, max(0.65, 0.85 - 0.05 * (f_c_ksi - 4.0)))
+
+
+def f_ps_rectangular(
+    A_ps: float, f_pu: float, f_py: float, d_p: float, b: float, f_c_ksi: float
+) -> tuple[float, float]:
+    """AASHTO LRFD 9th Ed. (2020) Eqs. 5.6.3.1.1-1, -2 and -4: fps for rectangular behaviour.
+
+    fps = fpu (1 − k c/dp), k = 2 (1.04 − fpy/fpu), c = Aps fpu / (α1 f'c β1 b + k Aps fpu/dp),
+    with α1 = 0.85 and no mild reinforcement (kip, in, ksi).
+
+    Returns:
+        (fps in ksi, c in in).
+    """
+    k = 2.0 * (1.04 - f_py / f_pu)
+    b1 = beta_1(f_c_ksi)
+    c = A_ps * f_pu / (0.85 * f_c_ksi * b1 * b + k * A_ps * f_pu / d_p)
+    return f_pu * (1.0 - k * c / d_p), c
