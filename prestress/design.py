@@ -1832,5 +1832,39 @@ def write_design_job(
             file=str(src),
             field="strands",
         ) from None
+    text = _relocate_paths(text, src.resolve().parent, target.resolve().parent)
     write_atomic(target, text)
     return target
+
+
+def _relocate_paths(text: str, src_dir: Path, dest_dir: Path) -> str:
+    """Keep the job's relative references valid when the new job is written elsewhere.
+
+    ``limits.file`` and ``job.section_libraries`` are rewritten relative to the new file's
+    folder.
+    """
+    import os
+    import re
+
+    if src_dir == dest_dir:
+        return text
+
+    def fix(path_text: str) -> str:
+        if Path(path_text).is_absolute():
+            return path_text
+        return Path(os.path.relpath(src_dir / path_text, dest_dir)).as_posix()
+
+    out, table = [], ""
+    for line in text.splitlines(keepends=True):
+        head = re.match(r"^\s*\[+\s*([A-Za-z0-9_.\- ]+?)\s*\]+", line)
+        if head:
+            table = head.group(1).strip()
+        m = re.match(r'^(\s*file\s*=\s*")([^"]*)(".*)$', line, re.S)
+        if table == "limits" and m:
+            line = m.group(1) + fix(m.group(2)) + m.group(3)
+        m = re.match(r"^(\s*section_libraries\s*=\s*\[)(.*)(\].*)$", line, re.S)
+        if table == "job" and m:
+            items = re.sub(r'"([^"]*)"', lambda mm: '"' + fix(mm.group(1)) + '"', m.group(2))
+            line = m.group(1) + items + m.group(3)
+        out.append(line)
+    return "".join(out)

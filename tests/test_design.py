@@ -489,3 +489,18 @@ line"""
     assert data["job"]["title"] == "x # not a comment [not a table]"
     assert data["loads"]["note"] == "multi\n[not a header]\nline"
     assert "\n\n# about the loads\n[loads]" in text and "# # about" not in text
+
+
+def test_written_job_in_another_folder_keeps_its_references(tmp_path) -> None:
+    """A pattern written elsewhere still finds the limit file the original names."""
+    from prestress.analysis import run_check
+    from prestress.design import design_file, write_design_job
+    from prestress.jobfile import load_job
+    from tests.conftest import EXAMPLES
+
+    src = EXAMPLES / "harl-brook-span1-g2-harped.toml"
+    result = design_file(src)
+    out = tmp_path / "elsewhere" / "leaner.toml"
+    out.parent.mkdir()
+    write_design_job(src, result.leanest, out)
+    assert run_check(load_job(out)).ok
