@@ -1273,8 +1273,8 @@ def build(
     )
     overview.blocks.append(
         Para(
-            "Not yet checked by this tool: strength (flexure), shear, camber and deflection; "
-            "post-tensioned girders are not checked stage by stage.",
+            "Not checked by this tool: strength (flexure), shear, camber and deflection; the "
+            "time-dependent losses of post-tensioned girders are entered by the engineer.",
             "note",
         )
     )
