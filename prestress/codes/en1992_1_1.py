@@ -28,6 +28,11 @@ import warnings
 import numpy as np
 from numpy.typing import ArrayLike, NDArray
 
+from prestress.codes._args import finite as _finite
+from prestress.codes._args import non_negative as _non_negative
+from prestress.codes._args import out as _out
+from prestress.codes._args import positive as _positive
+
 FloatOrArray = float | NDArray[np.float64]
 
 #: Cement classes of 3.1.2(6): S (slow), N (normal), R (rapid).
@@ -55,30 +60,6 @@ T_FINAL_RELAXATION_HOURS = 500_000.0
 
 
 # --------------------------------------------------------------------------- helpers
-def _out(value: NDArray[np.float64]) -> FloatOrArray:
-    """Return a Python float for a 0-d result, the array otherwise."""
-    return float(value) if np.ndim(value) == 0 else value
-
-
-def _finite(name: str, value: ArrayLike) -> NDArray[np.float64]:
-    a = np.asarray(value, dtype=float)
-    if np.any(~np.isfinite(a)):
-        raise ValueError(f"{name} must be finite, got {value}")
-    return a
-
-
-def _positive(name: str, value: ArrayLike, unit: str) -> NDArray[np.float64]:
-    a = _finite(name, value)
-    if np.any(a <= 0.0):
-        raise ValueError(f"{name} must be greater than 0 {unit}, got {value}")
-    return a
-
-
-def _non_negative(name: str, value: ArrayLike, unit: str) -> NDArray[np.float64]:
-    a = _finite(name, value)
-    if np.any(a < 0.0):
-        raise ValueError(f"{name} must be at least 0 {unit}, got {value}")
-    return a
 
 
 def _rh(RH: ArrayLike) -> NDArray[np.float64]:

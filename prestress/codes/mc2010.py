@@ -30,6 +30,11 @@ import warnings
 import numpy as np
 from numpy.typing import ArrayLike, NDArray
 
+from prestress.codes._args import finite as _finite
+from prestress.codes._args import non_negative as _non_negative
+from prestress.codes._args import out as _out
+from prestress.codes._args import positive as _positive
+
 FloatOrArray = float | NDArray[np.float64]
 
 #: Cement strength classes of MC2010 (2013) Table 5.1-9 / 5.1-12, as printed.
@@ -56,30 +61,6 @@ T0_LOWER_DAYS = 1.0
 
 
 # --------------------------------------------------------------------------- helpers
-def _out(value: NDArray[np.float64]) -> FloatOrArray:
-    """Return a Python float for a 0-d result, the array otherwise."""
-    return float(value) if np.ndim(value) == 0 else value
-
-
-def _finite(name: str, value: ArrayLike) -> NDArray[np.float64]:
-    a = np.asarray(value, dtype=float)
-    if np.any(~np.isfinite(a)):
-        raise ValueError(f"{name} must be finite, got {value}")
-    return a
-
-
-def _positive(name: str, value: ArrayLike, unit: str) -> NDArray[np.float64]:
-    a = _finite(name, value)
-    if np.any(a <= 0.0):
-        raise ValueError(f"{name} must be greater than 0 {unit}, got {value}")
-    return a
-
-
-def _non_negative(name: str, value: ArrayLike, unit: str) -> NDArray[np.float64]:
-    a = _finite(name, value)
-    if np.any(a < 0.0):
-        raise ValueError(f"{name} must be at least 0 {unit}, got {value}")
-    return a
 
 
 def _fcm(fcm: ArrayLike) -> NDArray[np.float64]:

@@ -8,7 +8,7 @@ Sources and what each test checks:
    from the equations; no published example used. Each step is written out below with its
    equation number. The module evaluates the same equations, so this comparison is the same
    arithmetic done twice: it guards the wiring (which ages, which f'ci, which V/S and which
-   section properties go into which factor) and the transcription of the equations, typed here
+   section properties go into which factor) and the copying of the equations, typed here
    a second time from the specification, not the code text itself. Tolerance rel 1e-9 against
    the module (round-off only); the rounded values written beside the steps are checked to one
    unit of their last digit.
@@ -259,7 +259,7 @@ def test_hand_calculation_rounded_values(name):
 def test_refined_losses_match_hand_calculation(name, source):
     # AASHTO LRFD 9th Ed. (2020), the equation named in `source`: hand calculation from the
     # equations; no published example used. Same arithmetic as the module, so rel 1e-9
-    # (round-off only); it guards the wiring and the equation transcription, not the code text.
+    # (round-off only); it guards the wiring and the copying of the equations, not the code text.
     r = refined_losses(_invented_input())
     assert getattr(r, name) == pytest.approx(HAND[name], rel=1e-9), source
 
