@@ -1,5 +1,6 @@
-"""Argument checks shared by the code modules (array-friendly; each raises ValueError naming
-the argument and what it must be).
+"""Argument checks shared by the code modules.
+
+Array-friendly; each raises ValueError naming the argument and what it must be.
 """
 
 from __future__ import annotations
