@@ -39,7 +39,7 @@ def fmt(v: float | None, system: str, role: str, digits: int = 3) -> str:
     mag = abs(x)
     if mag < 0.5 * 10**-digits:
         return "0"
-    if mag >= 1e6:
+    if mag >= 1e9:
         return f"{x:.4g}"
     if mag >= 1000:
         return f"{x:,.0f}"

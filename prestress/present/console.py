@@ -104,7 +104,7 @@ def header(result: CheckResult, system: str) -> Panel:
             (
                 "Strand centroid",
                 f"{fmt(job.y_ps, system, 'dimension')} {u('dimension')} above the "
-                f"bottom; e = {fmt(g.eccentricity_gross, system, 'dimension')} "
+                f"bottom at midlength; e = {fmt(g.eccentricity_gross, system, 'dimension')} "
                 f"{u('dimension')} below the girder centroid",
             ),
             (
