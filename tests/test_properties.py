@@ -455,7 +455,7 @@ def _moved(poly: shapely.Polygon, dx: float, dy: float, mirror: bool) -> shapely
     return orient(affinity.translate(poly, dx, dy), 1.0)
 
 
-@settings(max_examples=20, deadline=None)
+@settings(max_examples=200, deadline=None)
 @given(
     dims=i_girder_dims(),
     dx=_between(-5_000.0, 5_000.0),
@@ -469,7 +469,7 @@ def test_rigid_motions_keep_i_girder_properties(dims: dict[str, Any], dx: float,
     _assert_same_properties(gross_properties(_moved(poly, dx, dy, True), use_cache=False), ref)
 
 
-@settings(max_examples=20, deadline=None)
+@settings(max_examples=200, deadline=None)
 @given(
     points=st.lists(
         st.tuples(_between(-600.0, 600.0), _between(0.0, 1500.0)), min_size=4, max_size=9

@@ -78,7 +78,7 @@ def test_stage_increments_add_up(
             np.testing.assert_allclose(f - none.stresses[fiber], total, rtol=1e-9, atol=1e-9)
 
 
-@settings(max_examples=40, deadline=None)
+@settings(max_examples=200, deadline=None)
 @given(
     # below about 94 % humidity: above 99 % βs1 fib MC2010 Eq. 5.1-78 turns drying shrinkage into
     # swelling (a gain), a genuine feature of that model, not a fault
