@@ -200,6 +200,16 @@ def _with_distribution_factor(job: Job, gross: GrossProperties, comp, n_deck: fl
             if live.skew_deg > 0
             else 1.0
         )
+        if job.position == "exterior":
+            if live.curb_distance is None:
+                raise InputError(
+                    "the distance de from the exterior web to the curb, for an exterior girder",
+                    file=job.file,
+                    field="loads.live.curb_distance",
+                )
+            d_e = live.curb_distance / FOOT_MM
+            one = ll.g_exterior_lever_rule(S, d_e)
+            multi = ll.e_moment_exterior(d_e) * multi
     except (ValueError, TypeError) as exc:
         raise InputError(
             f"inputs within the range of AASHTO LRFD Table 4.6.2.2.2b-1 ({exc})",
@@ -207,12 +217,17 @@ def _with_distribution_factor(job: Job, gross: GrossProperties, comp, n_deck: fl
             field=field,
         ) from None
     g = max(one, multi) * skew
-    source = (
-        f"AASHTO LRFD 9th Ed. (2020) Table 4.6.2.2.2b-1, interior girder: one lane "
-        f"{one:.3f}, two or more {multi:.3f}"
-        + (f", skew × {skew:.3f}" if skew != 1 else "")
-        + f"; Kg = {Kg:,.0f} in⁴"
-    )
+    if job.position == "exterior":
+        head = (
+            "AASHTO LRFD 9th Ed. (2020) 4.6.2.2.2d, exterior girder: one lane by the lever "
+            f"rule {one:.3f} (m = 1.2), two or more lanes e × interior {multi:.3f}"
+        )
+    else:
+        head = (
+            "AASHTO LRFD 9th Ed. (2020) Table 4.6.2.2.2b-1, interior girder: one lane "
+            f"{one:.3f}, two or more {multi:.3f}"
+        )
+    source = head + (f", skew × {skew:.3f}" if skew != 1 else "") + f"; Kg = {Kg:,.0f} in⁴"
     loads = replace(
         job.loads, live=replace(live, distribution_factor=g, distribution_source=source)
     )

@@ -264,10 +264,13 @@ def _live(t: Table | None) -> LiveLoad:
             df, source = None, "AASHTO LRFD 4.6.2.2.2b-1"
             girders = t.integer("girders", low=3, high=60)
             skew = t.number("skew_degrees", 0.0, low=0.0, high=60.0)
+            curb = t.quantity("curb_distance", "length", None)
         elif isinstance(raw, int | float) and not isinstance(raw, bool) and 0 < raw <= 3:
             df, source = float(raw), "given in the job"
             t.raw("girders", None)
             t.raw("skew_degrees", None)
+            t.raw("curb_distance", None)
+            curb = None
         else:
             raise t.error(
                 "distribution_factor",
@@ -285,6 +288,7 @@ def _live(t: Table | None) -> LiveLoad:
             impact=impact,
             girders=girders,
             skew_deg=skew,
+            curb_distance=curb,
         )
     if t.has("moments"):
         raw = t.raw("moments")
@@ -966,4 +970,5 @@ def load_job(path: str | Path) -> Job:
         library_paths=libs,
         loss_basis=basis,
         spacing=spacing,
+        position=position,
     )

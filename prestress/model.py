@@ -173,6 +173,7 @@ class LiveLoad:
     impact: float = 0.33
     girders: int | None = None  # number of girders, for the AASHTO distribution factor
     skew_deg: float = 0.0
+    curb_distance: float | None = None  # d_e, exterior web to the curb's inner face, mm
 
     def moment_at(self, x_from_bearing: np.ndarray, span: float) -> np.ndarray:
         """Live-load moment per girder at positions measured from the left bearing (N*mm)."""
@@ -339,6 +340,7 @@ class Job:
     library_paths: tuple[str, ...] = field(default_factory=tuple)
     loss_basis: str = "gross"  # "gross" or "transformed": sections the stresses are computed on
     spacing: float | None = None
+    position: str = "interior"  # "interior" or "exterior" girder
     layout: Layout | None = None
     handling: Handling | None = None
     tendons: tuple[Tendon, ...] = ()

@@ -149,3 +149,30 @@ def test_every_top_level_example_is_a_complete_job(capsys) -> None:
     for p in sorted(EXAMPLES.glob("*.toml")):
         assert main(["check", str(p)]) in (0, 1), p
     capsys.readouterr()
+
+
+def test_exterior_girder_distribution_factor(tmp_path) -> None:
+    """AASHTO LRFD 9th Ed. (2020) 4.6.2.2.2d (from memory): exterior girder, one lane by the
+    lever rule (with m = 1.2), two or more lanes e = 0.77 + de/9.1 times the interior factor."""
+    from prestress.codes.aashto_lrfd import live_load as ll
+
+    text = (
+        HARPED.read_text(encoding="utf-8")
+        .replace('position = "interior"', 'position = "exterior"')
+        .replace("haunch_in_stiffness = false", 'haunch_in_stiffness = false\noverhang = "3 ft"')
+    )
+    text = text.replace("girders = 6", 'girders = 6\ncurb_distance = "1.5 ft"')
+    text = text.replace('file = "limits/', f'file = "{EXAMPLES.as_posix()}/limits/')
+    job_path = tmp_path / "ext.toml"
+    job_path.write_text(text, encoding="utf-8")
+    ext = resolve_girder(load_job(job_path))
+    interior = resolve_girder(load_job(HARPED))
+    g_int_multi = float(
+        interior.job.loads.live.distribution_source.split("two or more ")[1]
+        .split(";")[0]
+        .split(",")[0]
+    )
+    one = ll.g_exterior_lever_rule(8.0, 1.5)
+    multi = (0.77 + 1.5 / 9.1) * g_int_multi
+    assert ext.job.loads.live.distribution_factor == pytest.approx(max(one, multi), rel=2e-3)
+    assert "lever rule" in ext.job.loads.live.distribution_source
