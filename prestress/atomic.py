@@ -28,3 +28,52 @@ def write_atomic(path: str | Path, data: str | bytes) -> None:
         with contextlib.suppress(OSError):
             os.unlink(tmp)
         raise
+
+
+def check_output_path(
+    target: str | Path, *, inputs: tuple[Path, ...] | list[Path] = (), force: bool = False
+) -> None:
+    """Refuse an output path that is one of the inputs, or that exists (unless ``force``).
+
+    Raises:
+        InputError: naming the output file.
+    """
+    from prestress.errors import InputError
+
+    target = Path(target)
+    for src in inputs:
+        if target.resolve() == Path(src).resolve():
+            raise InputError(
+                "an output path different from the input files",
+                file=str(target),
+                got="the path of an input file",
+            )
+    if target.exists() and not force:
+        raise InputError(
+            "a path that does not exist yet (or --force to replace it)",
+            file=str(target),
+            got="an existing file",
+        )
+
+
+def save_figure_atomic(fig, out: Path, fmt: str) -> None:
+    """Save a matplotlib figure atomically (SVG without a date, so runs are reproducible)."""
+    import tempfile
+
+    import matplotlib
+
+    out.parent.mkdir(parents=True, exist_ok=True)
+    fd, tmp = tempfile.mkstemp(prefix=f".{out.stem}-", suffix=f".{fmt}", dir=out.parent)
+    os.close(fd)
+    try:
+        umask = os.umask(0)
+        os.umask(umask)
+        os.chmod(tmp, 0o666 & ~umask)  # mkstemp makes the file private; use the usual mode
+        with matplotlib.rc_context({"svg.hashsalt": "prestress", "svg.fonttype": "none"}):
+            meta = {"Date": None} if fmt == "svg" else {}
+            fig.savefig(tmp, format=fmt, dpi=150, facecolor="white", metadata=meta)
+        os.replace(tmp, out)
+    except BaseException:
+        if os.path.exists(tmp):
+            os.remove(tmp)
+        raise

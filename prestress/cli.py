@@ -199,19 +199,9 @@ def build_parser(only: str | None = None) -> argparse.ArgumentParser:
 
 def _check_output(target: Path, *, inputs: Sequence[Path], force: bool) -> None:
     """Refuse an output that is an input, or that exists without --force."""
-    for src in inputs:
-        if target.resolve() == src.resolve():
-            raise InputError(
-                "an output path different from the input files",
-                file=str(target),
-                got="the path of an input file",
-            )
-    if target.exists() and not force:
-        raise InputError(
-            "a path that does not exist yet (or --force to replace it)",
-            file=str(target),
-            got="an existing file",
-        )
+    from prestress.atomic import check_output_path
+
+    check_output_path(target, inputs=list(inputs), force=force)
 
 
 def _write_output(path: str, text: str, *, inputs: Sequence[Path], force: bool) -> None:

@@ -1794,21 +1794,10 @@ def write_design_job(
         InputError: when out_path is the input file, exists without ``force``, or the
             original's strand tables cannot be rewritten as text.
     """
-    from prestress.atomic import write_atomic
+    from prestress.atomic import check_output_path, write_atomic
 
     src, target = Path(original_toml_path), Path(out_path)
-    if target.resolve() == src.resolve():
-        raise InputError(
-            "an output path different from the input files",
-            file=str(target),
-            got="the path of an input file",
-        )
-    if target.exists() and not force:
-        raise InputError(
-            "a path that does not exist yet (or --force to replace it)",
-            file=str(target),
-            got="an existing file",
-        )
+    check_output_path(target, inputs=[src], force=force)
     c = candidate.candidate if isinstance(candidate, RankedCandidate) else candidate
     raw = src.read_bytes().decode("utf-8")
     data = read_toml(src)

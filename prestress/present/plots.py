@@ -17,7 +17,6 @@ from __future__ import annotations
 
 import math
 import os
-import tempfile
 from collections.abc import Callable, Sequence
 from dataclasses import dataclass
 from pathlib import Path
@@ -26,6 +25,7 @@ from typing import Any
 import numpy as np
 
 from prestress.analysis import SIGN_CONVENTION, CheckResult, StageResult, StationResult
+from prestress.atomic import save_figure_atomic
 from prestress.errors import InputError
 from prestress.present.common import FIBER_NAMES, label, value
 
@@ -64,31 +64,12 @@ def _suffix(path: str | os.PathLike[str]) -> str:
     return fmt
 
 
-def _umask() -> int:
-    mask = os.umask(0o022)
-    os.umask(mask)
-    return mask
-
-
 def _save(fig: Any, path: str | os.PathLike[str]) -> Path:
     """Write a figure as SVG or PNG (by suffix), atomically: temporary file, then os.replace."""
-    import matplotlib
-
     out = Path(path)
     fmt = _suffix(out)
     out.parent.mkdir(parents=True, exist_ok=True)
-    fd, tmp = tempfile.mkstemp(prefix=f".{out.stem}-", suffix=f".{fmt}", dir=out.parent)
-    os.close(fd)
-    try:
-        os.chmod(tmp, 0o666 & ~_umask())
-        with matplotlib.rc_context({"svg.hashsalt": "prestress", "svg.fonttype": "none"}):
-            meta = {"Date": None} if fmt == "svg" else {}
-            fig.savefig(tmp, format=fmt, dpi=150, facecolor="white", metadata=meta)
-        os.replace(tmp, out)
-    except BaseException:
-        if os.path.exists(tmp):
-            os.remove(tmp)
-        raise
+    save_figure_atomic(fig, out, fmt)
     return out
 
 

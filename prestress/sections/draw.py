@@ -11,7 +11,6 @@ from __future__ import annotations
 
 import math
 import os
-import tempfile
 from collections.abc import Sequence
 from dataclasses import dataclass
 from pathlib import Path
@@ -20,6 +19,7 @@ from typing import Any
 import shapely
 from shapely.geometry.polygon import orient
 
+from prestress.atomic import save_figure_atomic
 from prestress.units import INCH_MM
 
 #: Display of lengths: (unit label, size of the unit in mm).
@@ -182,7 +182,6 @@ def draw_section(
     Raises:
         ValueError: unknown units or file suffix, or an empty polygon.
     """
-    import matplotlib
     from matplotlib.backends.backend_agg import FigureCanvasAgg
     from matplotlib.figure import Figure
     from matplotlib.patches import Circle, PathPatch, Rectangle
@@ -318,24 +317,8 @@ def draw_section(
     fig.text(0.02, 0.16 / total_h, note, ha="left", va="center", fontsize=_FONT_PT - 1)
 
     out.parent.mkdir(parents=True, exist_ok=True)
-    fd, tmp = tempfile.mkstemp(prefix=f".{out.stem}-", suffix=f".{fmt}", dir=out.parent)
-    os.close(fd)
-    try:
-        os.chmod(tmp, 0o666 & ~_umask())  # mkstemp makes the file private; use the usual mode
-        with matplotlib.rc_context({"svg.hashsalt": "prestress", "svg.fonttype": "none"}):
-            meta = {"Date": None} if fmt == "svg" else {}
-            fig.savefig(tmp, format=fmt, dpi=150, facecolor="white", metadata=meta)
-        os.replace(tmp, out)
-    except BaseException:
-        if os.path.exists(tmp):
-            os.remove(tmp)
-        raise
 
-
-def _umask() -> int:
-    mask = os.umask(0o022)
-    os.umask(mask)
-    return mask
+    save_figure_atomic(fig, out, fmt)
 
 
 def _draw_dimension(ax: Any, d: DimensionLine, *, units: str, mm_per_pt: float) -> None:
