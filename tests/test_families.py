@@ -510,3 +510,19 @@ def test_validate_polygon_errors_name_file_and_field() -> None:
         validate_polygon(shapely.MultiPolygon([shapely.box(0, 0, 1, 1), shapely.box(2, 0, 3, 1)]))
     with pytest.raises(InputError, match="3 distinct"):
         validate_polygon(shapely.Polygon([(0, 0), (1, 0), (1, 0), (0, 0)]))
+
+
+def test_mesh_ready_drops_degenerate_vertices_only() -> None:
+    """Near-duplicate and collinear vertices (which can crash the triangle mesher) are dropped;
+    a sound outline is left exactly as it is (common practice for meshing input)."""
+    from shapely.geometry import Polygon
+
+    from prestress.sections.properties import gross_properties, mesh_ready
+
+    square = Polygon([(0, 0), (100, 0), (100, 50), (0, 50)])
+    assert mesh_ready(square).equals_exact(square, 0.0)
+    messy = Polygon([(0, 0), (50, 0), (100, 0), (100, 1e-9), (100, 50), (0, 50), (0, 50 - 1e-9)])
+    clean = mesh_ready(messy)
+    assert len(clean.exterior.coords) == 5
+    a = gross_properties(clean, use_cache=False)
+    assert a.area == pytest.approx(5000.0) and a.Ix == pytest.approx(100 * 50**3 / 12)

@@ -103,12 +103,53 @@ def _top_width(poly: Polygon) -> float:
     return float(strip.area / 0.5) if not strip.is_empty else 0.0
 
 
+def _clean_ring(coords: list[tuple[float, float]], tol: float) -> list[tuple[float, float]]:
+    """Drop vertices within ``tol`` of the previous one, and vertices on a straight line."""
+    pts = [coords[0]]
+    for x, y in coords[1:-1]:
+        if math.hypot(x - pts[-1][0], y - pts[-1][1]) > tol:
+            pts.append((x, y))
+    while len(pts) > 3 and math.hypot(pts[-1][0] - pts[0][0], pts[-1][1] - pts[0][1]) <= tol:
+        pts.pop()
+    changed = True
+    while changed and len(pts) > 3:
+        changed = False
+        for k in range(len(pts)):
+            (ax, ay), (bx, by), (cx, cy) = pts[k - 1], pts[k], pts[(k + 1) % len(pts)]
+            cross = (bx - ax) * (cy - ay) - (by - ay) * (cx - ax)
+            span = math.hypot(cx - ax, cy - ay)
+            if abs(cross) <= tol * max(span, tol):  # b lies within tol of the line a–c
+                del pts[k]
+                changed = True
+                break
+    return [*pts, pts[0]]
+
+
+def mesh_ready(poly: Polygon) -> Polygon:
+    """The polygon made safe for the triangle mesher, without changing a sound outline.
+
+    Vertices closer than 1e-7 of the shape's size to their neighbour, and vertices lying on
+    the straight line through their neighbours, are dropped: the mesher (Triangle) can crash
+    on nearly coincident or collinear points. Ordinary outlines come through unchanged.
+    """
+    from shapely.geometry import Polygon as ShapelyPolygon
+
+    minx, miny, maxx, maxy = poly.bounds
+    tol = 1e-7 * max(maxx - minx, maxy - miny)
+    ext = _clean_ring(list(poly.exterior.coords), tol)
+    holes = [_clean_ring(list(r.coords), tol) for r in poly.interiors]
+    if len(ext) < 4 or any(len(h) < 4 for h in holes):
+        return poly
+    cleaned = ShapelyPolygon(ext, holes)
+    return cleaned if cleaned.is_valid and cleaned.area > 0 else poly
+
+
 def _compute(poly: Polygon, torsion: bool) -> GrossProperties:
     """Run sectionproperties (heavy import) on the polygon."""
     from sectionproperties.analysis.section import Section
     from sectionproperties.pre.geometry import Geometry
 
-    geom = Geometry(poly)
+    geom = Geometry(mesh_ready(poly))
     geom.create_mesh(mesh_sizes=[0])
     sec = Section(geom)
     sec.calculate_geometric_properties()
