@@ -23,6 +23,21 @@ if TYPE_CHECKING:
 CLAUSE = "AASHTO LRFD 9th Ed. (2020)"
 
 
+def midspan_noncomposite_moment(girder: Girder) -> float:
+    """Moment at midspan of the loads placed on the girder alone after transfer (N*mm).
+
+    Deck, haunch and other non-composite load on the span, and the diaphragms.
+    """
+    from prestress.actions import point_on_span
+
+    job = girder.job
+    S = job.span
+    m = girder.deck_weight * S**2 / 8.0
+    for at, P in job.loads.diaphragms:
+        m += float(point_on_span(P, at, S, [S / 2.0])[0])
+    return m
+
+
 def deck_volume_to_surface(girder: Girder) -> float:
     """V/S of the deck slab (mm): both faces exposed except over the girder's top flange.
 
@@ -55,7 +70,7 @@ def refined_input(girder: Girder, f_pt: float) -> rl.RefinedLossInput:
     M_g = girder.self_weight * job.length**2 / 8.0
     P_i = job.A_ps * f_pt
     f_cgp = aashto.f_cgp(P_i, g.area, g.Ix, e_pg, M_g)
-    M_deck = girder.deck_weight * job.span**2 / 8.0
+    M_deck = midspan_noncomposite_moment(girder)
     M_sdl = (job.loads.superimposed_dead + job.loads.wearing_surface) * job.span**2 / 8.0
     inch2, inch4, kipin = INCH_MM**2, INCH_MM**4, KIP_N * INCH_MM
     assert gc.fci is not None and gc.Eci is not None
@@ -115,7 +130,7 @@ def aashto_refined(girder: Girder) -> LossBreakdown:
     c = girder.composite_section
     assert c is not None
     inch2, inch4, kipin = INCH_MM**2, INCH_MM**4, KIP_N * INCH_MM
-    M_deck = girder.deck_weight * job.span**2 / 8.0 / kipin
+    M_deck = midspan_noncomposite_moment(girder) / kipin
     M_sdl = (job.loads.superimposed_dead + job.loads.wearing_surface) * job.span**2 / 8.0 / kipin
     for _ in range(2):
         dfcd = rl.delta_f_cd(

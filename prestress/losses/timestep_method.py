@@ -18,7 +18,7 @@ from prestress.errors import InputError
 from prestress.losses import LossBreakdown, LossComponent, register
 from prestress.losses.models import make_model
 from prestress.losses.pretensioned import before_transfer, finish
-from prestress.losses.refined import deck_volume_to_surface
+from prestress.losses.refined import deck_volume_to_surface, midspan_noncomposite_moment
 from prestress.losses.timestep import ConcretePart, LoadEvent, StrandLayer, run_timestep
 
 if TYPE_CHECKING:
@@ -145,7 +145,7 @@ def analyse(girder: Girder, model_name: str, n_steps: int = 120):
     M_len = girder.self_weight * job.length**2 / 8.0
     a = job.bearing_offset
     M_span = girder.self_weight * (job.length**2 / 8.0 - job.length * a / 2.0)
-    M_deck = girder.deck_weight * job.span**2 / 8.0
+    M_deck = midspan_noncomposite_moment(girder)
     M_sdl = (job.loads.superimposed_dead + job.loads.wearing_surface) * job.span**2 / 8.0
     t_sdl = min(t.deck_placement + SUPERIMPOSED_DELAY_DAYS, 0.5 * (t.deck_placement + t.final))
     events = [
