@@ -38,3 +38,13 @@ def non_negative(name: str, value: ArrayLike, unit: str) -> NDArray[np.float64]:
     if np.any(a < 0.0):
         raise ValueError(f"{name} must be at least 0 {unit}, got {value}")
     return a
+
+
+def not_before(
+    t: ArrayLike, t_start: NDArray[np.float64], name: str, start: str
+) -> NDArray[np.float64]:
+    """The time as a float array; every element zero or more and not before ``t_start``."""
+    a = non_negative(name, t, "days")
+    if np.any(a < t_start):
+        raise ValueError(f"{name} must be at least {start} (days), got {name} = {t}")
+    return a

@@ -30,6 +30,7 @@ from numpy.typing import ArrayLike, NDArray
 
 from prestress.codes._args import finite as _finite
 from prestress.codes._args import non_negative as _non_negative
+from prestress.codes._args import not_before as _t_not_before
 from prestress.codes._args import out as _out
 from prestress.codes._args import positive as _positive
 
@@ -73,13 +74,6 @@ def _rh(RH: ArrayLike) -> NDArray[np.float64]:
             stacklevel=3,
         )
     return r
-
-
-def _t_not_before(t: ArrayLike, t_start: NDArray[np.float64], name: str, start: str):
-    a = _non_negative(name, t, "days")
-    if np.any(a < t_start):
-        raise ValueError(f"{name} must be at least {start} (days), got {name} = {t}")
-    return a
 
 
 def _cement(cement_class: str) -> str:

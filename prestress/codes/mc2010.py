@@ -32,6 +32,7 @@ from numpy.typing import ArrayLike, NDArray
 
 from prestress.codes._args import finite as _finite
 from prestress.codes._args import non_negative as _non_negative
+from prestress.codes._args import not_before as _t_not_before
 from prestress.codes._args import out as _out
 from prestress.codes._args import positive as _positive
 
@@ -96,13 +97,6 @@ def _t0(t0: ArrayLike) -> NDArray[np.float64]:
             "fib MC2010 5.1.9.4.2",
             stacklevel=3,
         )
-    return a
-
-
-def _t_not_before(t: ArrayLike, t_start: NDArray[np.float64], name: str, start: str):
-    a = _non_negative(name, t, "days")
-    if np.any(a < t_start):
-        raise ValueError(f"{name} must be at least {start} (days), got {name} = {t}")
     return a
 
 

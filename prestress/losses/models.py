@@ -96,6 +96,18 @@ def _positive(name: str, value: Any, unit: str) -> float:
     return v
 
 
+def _fib_checks(m: Any) -> float:
+    """Checks shared by the MC2010 and EN 1992-1-1 adapters; returns fcm (MPa, fck + 8)."""
+    fck = _positive("f_ck", m.f_ck, "MPa")
+    fcm = fck + 8.0 if m.f_cm is None else _positive("f_cm", m.f_cm, "MPa")
+    _humidity(m.relative_humidity)
+    _positive("notional_size", m.notional_size, "mm")
+    _positive("age_at_end_of_curing", m.age_at_end_of_curing, "days")
+    if m.equivalent_age_at_end_of_curing is not None:
+        _positive("equivalent_age_at_end_of_curing", m.equivalent_age_at_end_of_curing, "d")
+    return fcm
+
+
 def _humidity(value: Any) -> float:
     v = _finite_float("relative_humidity", value)
     if not 0.0 <= v <= 100.0:
@@ -480,13 +492,7 @@ class Mc2010Model(_Base):
     title: ClassVar[str] = "fib Model Code 2010 (2013) 5.1.9.4, Eq. 5.1-21, 5.1-51, 5.1-56"
 
     def __post_init__(self) -> None:
-        fck = _positive("f_ck", self.f_ck, "MPa")
-        fcm = fck + 8.0 if self.f_cm is None else _positive("f_cm", self.f_cm, "MPa")
-        _humidity(self.relative_humidity)
-        _positive("notional_size", self.notional_size, "mm")
-        _positive("age_at_end_of_curing", self.age_at_end_of_curing, "days")
-        if self.equivalent_age_at_end_of_curing is not None:
-            _positive("equivalent_age_at_end_of_curing", self.equivalent_age_at_end_of_curing, "d")
+        fcm = _fib_checks(self)
         mc.alpha_cement(self.cement_class)  # validates the class (ValueError naming it)
         key = next(
             c
@@ -593,13 +599,7 @@ class En1992Model(_Base):
     title: ClassVar[str] = "EN 1992-1-1:2004 Annex B, 3.1.3(3), 3.1.4"
 
     def __post_init__(self) -> None:
-        fck = _positive("f_ck", self.f_ck, "MPa")
-        fcm = fck + 8.0 if self.f_cm is None else _positive("f_cm", self.f_cm, "MPa")
-        _humidity(self.relative_humidity)
-        _positive("notional_size", self.notional_size, "mm")
-        _positive("age_at_end_of_curing", self.age_at_end_of_curing, "days")
-        if self.equivalent_age_at_end_of_curing is not None:
-            _positive("equivalent_age_at_end_of_curing", self.equivalent_age_at_end_of_curing, "d")
+        fcm = _fib_checks(self)
         cls = str(self.cement_class).strip().upper()
         en.alpha_cement(cls)  # validates the class
         object.__setattr__(self, "cement_class", cls)
@@ -613,7 +613,7 @@ class En1992Model(_Base):
         object.__setattr__(self, "_E28", E28)
         # surface the code's own soft limits once (RH, fck)
         en.beta_RH(self.relative_humidity)
-        en.epsilon_ca_inf(fck)
+        en.epsilon_ca_inf(self.f_ck)
 
     def _tT(self, age: FloatArray) -> FloatArray:
         return _maturity(age, self.age_at_end_of_curing, self.equivalent_age_at_end_of_curing)
