@@ -521,7 +521,7 @@ def test_mesh_ready_drops_degenerate_vertices_only() -> None:
 
     square = Polygon([(0, 0), (100, 0), (100, 50), (0, 50)])
     assert mesh_ready(square).equals_exact(square, 0.0)
-    messy = Polygon([(0, 0), (50, 0), (100, 0), (100, 1e-9), (100, 50), (0, 50), (0, 50 - 1e-9)])
+    messy = Polygon([(0, 0), (50, 0), (100, 0), (100, 1e-12), (100, 50), (0, 50), (0, 50 - 1e-12)])
     clean = mesh_ready(messy)
     assert len(clean.exterior.coords) == 5
     a = gross_properties(clean, use_cache=False)

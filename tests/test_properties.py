@@ -476,6 +476,7 @@ def test_rigid_motions_keep_i_girder_properties(dims: dict[str, Any], dx: float,
     ),
     dx=_between(-5_000.0, 5_000.0),
 )
+@example(points=[(0.0, 4.0), (0.0, 611.0), (33.0, 0.0), (6.103515625e-05, 611.0)], dx=0.0)
 def test_mirroring_an_unsymmetric_section_keeps_its_properties(
     points: list[tuple[float, float]], dx: float
 ) -> None:

@@ -128,14 +128,14 @@ def _clean_ring(coords: list[tuple[float, float]], tol: float) -> list[tuple[flo
 def mesh_ready(poly: Polygon) -> Polygon:
     """The polygon made safe for the triangle mesher, without changing a sound outline.
 
-    Vertices closer than 1e-7 of the shape's size to their neighbour, and vertices lying on
+    Vertices closer than 1e-9 of the shape's size to their neighbour, and vertices lying on
     the straight line through their neighbours, are dropped: the mesher (Triangle) can crash
     on nearly coincident or collinear points. Ordinary outlines come through unchanged.
     """
     from shapely.geometry import Polygon as ShapelyPolygon
 
     minx, miny, maxx, maxy = poly.bounds
-    tol = 1e-7 * max(maxx - minx, maxy - miny)
+    tol = 1e-9 * max(maxx - minx, maxy - miny)
     ext = _clean_ring(list(poly.exterior.coords), tol)
     holes = [_clean_ring(list(r.coords), tol) for r in poly.interiors]
     if len(ext) < 4 or any(len(h) < 4 for h in holes):
