@@ -26,7 +26,7 @@ from prestress.sections.composite import (
     transformed_girder,
 )
 from prestress.sections.properties import GrossProperties, ResolvedSection
-from prestress.stages import ZoneStation, fiber_stress  # noqa: F401  (re-exported)
+from prestress.stages import LoadEffects, ZoneStation, fiber_stress  # noqa: F401  (re-exported)
 
 SIGN_CONVENTION = "tension +, compression −"
 
@@ -170,11 +170,23 @@ def _replace_deck(job: Job, deck) -> Job:  # type: ignore[no-untyped-def]
 
 
 def _with_distribution_factor(job: Job, gross: GrossProperties, comp, n_deck: float) -> Job:  # type: ignore[no-untyped-def]
-    """Compute the HL-93 moment distribution factor by AASHTO LRFD 4.6.2.2 when asked."""
+    """Compute the HL-93 distribution factors by AASHTO LRFD 4.6.2.2 where the job asks.
+
+    Moment: Table 4.6.2.2.2b-1 (interior) or 4.6.2.2.2d-1 (exterior), with the skew reduction
+    of Table 4.6.2.2.2e-1. Shear: Table 4.6.2.2.3a-1 (interior) or 4.6.2.2.3b-1 (exterior),
+    with the skew correction of Table 4.6.2.2.3c-1 applied along the whole span (the table
+    gives it for the obtuse corner; applying it everywhere errs on the safe side).
+    """
     from dataclasses import replace
 
     live = job.loads.live
-    if live.model != "HL-93" or live.distribution_factor is not None:
+    moment_wanted = live.model == "HL-93" and live.distribution_factor is None
+    shear_wanted = (
+        live.model == "HL-93"
+        and live.shear_distribution_factor is None
+        and live.shear_distribution_source.startswith("AASHTO")
+    )
+    if not (moment_wanted or shear_wanted):
         return job
     from prestress.codes.aashto_lrfd import live_load as ll
     from prestress.units import FOOT_MM
@@ -192,15 +204,16 @@ def _with_distribution_factor(job: Job, gross: GrossProperties, comp, n_deck: fl
     n = 1.0 / n_deck  # 4.6.2.2.1-2: n = E_beam / E_deck
     Kg = ll.K_g(n, gross.Ix / INCH4, gross.area / INCH2, e_g / 25.4)
     S, L, ts = job.spacing / FOOT_MM, job.span / FOOT_MM, deck.thickness / 25.4
+    N_b = live.girders
+    exterior = job.position == "exterior"
     try:
-        one = ll.g_moment_interior_one_lane(S, L, ts, Kg, live.girders)
-        multi = ll.g_moment_interior_multi_lane(S, L, ts, Kg, live.girders)
-        skew = (
-            ll.skew_factor_moment(live.skew_deg, S, L, ts, Kg, live.girders)
-            if live.skew_deg > 0
-            else 1.0
-        )
-        if job.position == "exterior":
+        m_one = ll.g_moment_interior_one_lane(S, L, ts, Kg, N_b)
+        m_multi = ll.g_moment_interior_multi_lane(S, L, ts, Kg, N_b)
+        v_one = ll.g_shear_interior_one_lane(S, L, ts, Kg, N_b)
+        v_multi = ll.g_shear_interior_multi_lane(S, L, ts, Kg, N_b)
+        skew_m = ll.skew_factor_moment(live.skew_deg, S, L, ts, Kg, N_b) if live.skew_deg else 1.0
+        skew_v = ll.skew_factor_shear(live.skew_deg, S, L, ts, Kg, N_b) if live.skew_deg else 1.0
+        if exterior:
             if live.curb_distance is None:
                 raise InputError(
                     "the distance de from the exterior web to the curb, for an exterior girder",
@@ -208,30 +221,48 @@ def _with_distribution_factor(job: Job, gross: GrossProperties, comp, n_deck: fl
                     field="loads.live.curb_distance",
                 )
             d_e = live.curb_distance / FOOT_MM
-            one = ll.g_exterior_lever_rule(S, d_e)
-            multi = ll.e_moment_exterior(d_e) * multi
+            lever = ll.g_exterior_lever_rule(S, d_e)
+            m_one, m_multi = lever, ll.e_moment_exterior(d_e) * m_multi
+            v_one, v_multi = lever, ll.e_shear_exterior(d_e) * v_multi
     except (ValueError, TypeError) as exc:
         raise InputError(
             f"inputs within the range of AASHTO LRFD Table 4.6.2.2.2b-1 ({exc})",
             file=job.file,
             field=field,
         ) from None
-    g = max(one, multi) * skew
-    if job.position == "exterior":
-        head = (
-            "AASHTO LRFD 9th Ed. (2020) 4.6.2.2.2d, exterior girder: one lane by the lever "
-            f"rule {one:.3f} (m = 1.2), two or more lanes e × interior {multi:.3f}"
+    ed = "AASHTO LRFD 9th Ed. (2020)"
+    if exterior:
+        m_head = (
+            f"{ed} 4.6.2.2.2d, exterior girder: one lane by the lever rule {m_one:.3f} "
+            f"(m = 1.2), two or more lanes e × interior {m_multi:.3f}"
+        )
+        v_head = (
+            f"{ed} 4.6.2.2.3b, exterior girder: one lane by the lever rule {v_one:.3f} "
+            f"(m = 1.2), two or more lanes e × interior {v_multi:.3f}"
         )
     else:
-        head = (
-            "AASHTO LRFD 9th Ed. (2020) Table 4.6.2.2.2b-1, interior girder: one lane "
-            f"{one:.3f}, two or more {multi:.3f}"
+        m_head = (
+            f"{ed} Table 4.6.2.2.2b-1, interior girder: one lane {m_one:.3f}, "
+            f"two or more {m_multi:.3f}"
         )
-    source = head + (f", skew × {skew:.3f}" if skew != 1 else "") + f"; Kg = {Kg:,.0f} in⁴"
-    loads = replace(
-        job.loads, live=replace(live, distribution_factor=g, distribution_source=source)
-    )
-    return replace(job, loads=loads)
+        v_head = (
+            f"{ed} Table 4.6.2.2.3a-1, interior girder: one lane {v_one:.3f}, "
+            f"two or more {v_multi:.3f}"
+        )
+    if moment_wanted:
+        g = max(m_one, m_multi) * skew_m
+        skew_text = f", skew × {skew_m:.3f}" if skew_m != 1 else ""
+        source = f"{m_head}{skew_text}; Kg = {Kg:,.0f} in⁴"
+        live = replace(live, distribution_factor=g, distribution_source=source)
+    if shear_wanted:
+        g_v = max(v_one, v_multi) * skew_v
+        source_v = v_head + (
+            f", skew × {skew_v:.3f} (Table 4.6.2.2.3c-1, applied along the span)"
+            if skew_v != 1
+            else ""
+        )
+        live = replace(live, shear_distribution_factor=g_v, shear_distribution_source=source_v)
+    return replace(job, loads=replace(job.loads, live=live))
 
 
 INCH2 = 25.4**2
@@ -397,6 +428,7 @@ class CheckResult:
     stages: tuple[StageResult, ...]
     notes: tuple[str, ...] = field(default_factory=tuple)
     zone: tuple[ZoneStation, ...] = ()
+    loads: LoadEffects | None = None
 
     @property
     def ok(self) -> bool:
@@ -485,10 +517,12 @@ def zone_at(
     cgs = prestress_at(girder, losses, "final", np.array([st.x for st in stations_]))[1]
     for st, y in zip(stations_, cgs, strict=True):
         lo, hi, who_lo, who_hi = -np.inf, np.inf, "", ""
+        # stages in time order; a later stage takes over a bound only when it is tighter by
+        # more than round-off (1e-6 mm), so ties name the earlier stage in any unit system
         for b_lo, b_hi, w_lo, w_hi in bounds.get(round(st.x, 3), []):
-            if b_lo > lo:
+            if b_lo > lo + 1e-6:
                 lo, who_lo = b_lo, w_lo
-            if b_hi < hi:
+            if b_hi < hi - 1e-6:
                 hi, who_hi = b_hi, w_hi
         zone.append(
             ZoneStation(
@@ -555,7 +589,7 @@ def development_length_notes(girder: Girder, losses: LossBreakdown) -> list[str]
 
 def run_check(job: Job, *, cli_libraries: tuple[str, ...] = ()) -> CheckResult:
     """Run the whole check of a job: section, losses, stresses per stage, limits, zone."""
-    from prestress.stages import stage_specs, stage_stresses, stations
+    from prestress.stages import load_effects, stage_specs, stage_stresses, stations
 
     girder = resolve_girder(job, cli_libraries=cli_libraries)
     job = girder.job
@@ -640,7 +674,12 @@ def run_check(job: Job, *, cli_libraries: tuple[str, ...] = ()) -> CheckResult:
             )
         ]
     return CheckResult(
-        girder=girder, losses=losses, stages=tuple(results), notes=tuple(notes), zone=tuple(zone)
+        girder=girder,
+        losses=losses,
+        stages=tuple(results),
+        notes=tuple(notes),
+        zone=tuple(zone),
+        loads=load_effects(girder, all_st),
     )
 
 

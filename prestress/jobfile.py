@@ -277,6 +277,7 @@ def _live(t: Table | None) -> LiveLoad:
                 'a number of lanes per girder from 0 to 3, or "aashto"',
                 repr(raw),
             )
+        shear_df, shear_source = _shear_distribution(t, df is None)
         t.string("note", "")
         t.done()
         return LiveLoad(
@@ -289,6 +290,8 @@ def _live(t: Table | None) -> LiveLoad:
             girders=girders,
             skew_deg=skew,
             curb_distance=curb,
+            shear_distribution_factor=shear_df,
+            shear_distribution_source=shear_source,
         )
     if t.has("moments"):
         raw = t.raw("moments")
@@ -307,6 +310,32 @@ def _live(t: Table | None) -> LiveLoad:
     t.string("note", "")
     t.done()
     return LiveLoad(moment_midspan=m, moments_tenth_points=None)
+
+
+def _shear_distribution(t: Table, moment_by_aashto: bool) -> tuple[float | None, str]:
+    """The live-load shear distribution factor: (factor, source).
+
+    ``"aashto"`` (the default when the moment factor is computed) leaves the factor to be
+    computed with the moment factor (factor None, source set); a number is taken as given;
+    absent beside a given moment factor, no shear factor (None, "").
+    """
+    key = "shear_distribution_factor"
+    expected = 'a number of lanes per girder from 0 to 3, or "aashto"'
+    raw = t.raw(key, None, expected=expected)
+    if raw is None:
+        return None, ("AASHTO LRFD 4.6.2.2.3a-1" if moment_by_aashto else "")
+    if isinstance(raw, str) and raw.lower() == "aashto":
+        if not moment_by_aashto:
+            raise t.error(
+                key,
+                "a number (the AASHTO shear factor is computed only beside "
+                'distribution_factor = "aashto")',
+                repr(raw),
+            )
+        return None, "AASHTO LRFD 4.6.2.2.3a-1"
+    if isinstance(raw, int | float) and not isinstance(raw, bool) and 0 < raw <= 3:
+        return float(raw), "given in the job"
+    raise t.error(key, expected, repr(raw))
 
 
 def _diaphragms(ld: Table, span: float) -> tuple[tuple[float, float], ...]:

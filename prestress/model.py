@@ -163,6 +163,9 @@ class LiveLoad:
         distribution_factor: live-load distribution factor for moment (HL-93), lanes per girder.
         distribution_source: where the factor comes from.
         impact: dynamic load allowance IM on truck and tandem (HL-93).
+        shear_distribution_factor: live-load distribution factor for shear (HL-93), lanes per
+            girder; None where it is neither given nor asked for ("aashto").
+        shear_distribution_source: where the shear factor comes from.
     """
 
     moment_midspan: float | None
@@ -174,6 +177,8 @@ class LiveLoad:
     girders: int | None = None  # number of girders, for the AASHTO distribution factor
     skew_deg: float = 0.0
     curb_distance: float | None = None  # d_e, exterior web to the curb's inner face, mm
+    shear_distribution_factor: float | None = None
+    shear_distribution_source: str = ""
 
     def moment_at(self, x_from_bearing: np.ndarray, span: float) -> np.ndarray:
         """Live-load moment per girder at positions measured from the left bearing (N*mm)."""
@@ -191,6 +196,28 @@ class LiveLoad:
             return np.where(inside, np.interp(xc, xs, np.asarray(self.moments_tenth_points)), 0.0)
         assert self.moment_midspan is not None
         return np.where(inside, 4.0 * self.moment_midspan * xc * (span - xc) / span**2, 0.0)
+
+    def shear_at(
+        self, x_from_bearing: np.ndarray, span: float
+    ) -> tuple[np.ndarray, np.ndarray] | None:
+        """Live-load shear envelope per girder at positions from the left bearing (N).
+
+        Returns (greatest, least) shear, or None for given moments or without a shear
+        distribution factor. Shear is positive when the part of the girder left of the
+        section is pushed up (``prestress.loads.hl93``).
+        """
+        if self.model != "HL-93" or self.shear_distribution_factor is None:
+            return None
+        from prestress.loads.hl93 import hl93_envelope
+
+        x = np.asarray(x_from_bearing, dtype=float)
+        inside = (x >= 0.0) & (x <= span)
+        env = hl93_envelope(span, np.clip(x, 0.0, span), impact=self.impact)
+        g = self.shear_distribution_factor
+        return (
+            np.where(inside, g * np.asarray(env.V_LL_IM_max), 0.0),
+            np.where(inside, g * np.asarray(env.V_LL_IM_min), 0.0),
+        )
 
 
 @dataclass(frozen=True)

@@ -109,6 +109,10 @@ class StageSpec:
     description: str
 
 
+#: The dead loads a stage may carry, in time order.
+LOAD_KEYS = ("girder", "deck", "diaphragms", "superimposed")
+
+
 def stage_specs(girder: Girder) -> list[StageSpec]:
     """The stages of the job, in time order."""
     job = girder.job
@@ -156,7 +160,7 @@ def stage_specs(girder: Girder) -> list[StageSpec]:
             "weights on the girder alone, on its bearings",
         )
     )
-    dead_loads = ("girder", "deck", "diaphragms", "superimposed")
+    dead_loads = LOAD_KEYS
     c_i, c_iii = job.combinations["service_i"], job.combinations["service_iii"]
     specs += [
         StageSpec(
@@ -278,6 +282,54 @@ COMPOSITE_LOADS = ("superimposed", "live")
 
 
 @dataclass(frozen=True)
+class LoadEffects:
+    """Unfactored moments by load and the live-load shear per girder at the span's stations.
+
+    Attributes:
+        stations: the stations between the bearings.
+        x: their positions from the left girder end, mm.
+        moments: N*mm by load, each an array over the stations: "girder" (self-weight on the
+            bearings), "deck" (deck, haunch and other loads on the girder alone), "diaphragms",
+            "barriers" (superimposed DC on the composite section), "wearing_surface" (DW on
+            the composite section), "live" (live load with impact, per girder).
+        shear_live: (greatest, least) live-load shear per girder, N, or None when the live
+            load gives no shear (given moments, or no shear distribution factor).
+    """
+
+    stations: list[Station]
+    x: np.ndarray
+    moments: dict[str, np.ndarray]
+    shear_live: tuple[np.ndarray, np.ndarray] | None
+
+
+def span_stations(girder: Girder, all_stations: list[Station]) -> list[Station]:
+    """The stations on the span, between the bearings (1 mm tolerance)."""
+    a, L = girder.job.bearing_offset, girder.job.length
+    return [s for s in all_stations if a - 1.0 <= s.x <= L - a + 1.0]
+
+
+def load_effects(girder: Girder, all_stations: list[Station]) -> LoadEffects:
+    """Moments of every load (unfactored) and the live-load shear at the span's stations.
+
+    The same statics as the stages (:func:`moments`) with every factor 1: the girder on its
+    bearings, the loads on the design span.
+    """
+    job = girder.job
+    sts = span_stations(girder, all_stations)
+    x = np.array([s.x for s in sts])
+    xb = x - job.bearing_offset
+    spec = StageSpec("loads", "", "final", "bearings", 1.0, 1.0, (*LOAD_KEYS, "live"), "fc", "")
+    ms = moments(girder, spec, x)
+    out: dict[str, np.ndarray] = {k: ms[k] for k in ("girder", "deck", "diaphragms") if k in ms}
+    loads = job.loads
+    out["barriers"] = actions.uniform_on_span(loads.superimposed_dead, job.span, xb)
+    out["wearing_surface"] = actions.uniform_on_span(loads.wearing_surface, job.span, xb)
+    if "live" in ms:
+        out["live"] = ms["live"]
+    return LoadEffects(sts, x, out, loads.live.shear_at(xb, job.span))
+
+
+@dataclass(frozen=True)
 class StageStresses:
     """Raw results of one stage at its stations (arrays over stations)."""
 
@@ -298,12 +350,7 @@ def stage_stresses(
     girder: Girder, losses: LossBreakdown, spec: StageSpec, all_stations: list[Station]
 ) -> StageStresses:
     """Fiber stresses of one stage at its stations (vectorised over the stations)."""
-    job = girder.job
-    if spec.support == "bearings":
-        a = job.bearing_offset
-        sts = [s for s in all_stations if a - 1.0 <= s.x <= job.length - a + 1.0]
-    else:
-        sts = list(all_stations)
+    sts = span_stations(girder, all_stations) if spec.support == "bearings" else list(all_stations)
     x = np.array([s.x for s in sts])
     sec = girder.section_transfer if spec.prestress == "transfer" else girder.section_service
     assert sec is not None

@@ -153,6 +153,7 @@ KNOWN_KEYS: frozenset[str] = frozenset(
         "service_iii",
         "service_permanent",
         "set",
+        "shear_distribution_factor",
         "skew_degrees",
         "source",
         "spacing",

@@ -437,7 +437,7 @@ def _read(path: Path) -> list[list[str]]:
 def test_csv_files_and_rows(us: CheckResult, tmp_path: Path) -> None:
     files = write_csv(us, tmp_path / "out", "US")
     names = [p.name for p in files]
-    assert names == [f"{s.key}.csv" for s in us.stages] + ["losses.csv", "zone.csv"]
+    assert names == [f"{s.key}.csv" for s in us.stages] + ["loads.csv", "losses.csv", "zone.csv"]
     for stage in us.stages:
         rows = _read(tmp_path / "out" / f"{stage.key}.csv")
         header, body = rows[0], rows[1:]
@@ -468,6 +468,16 @@ def test_csv_files_and_rows(us: CheckResult, tmp_path: Path) -> None:
     assert [r[1] for r in losses[1:] if r[0] == "stress"] == [m.key for m in b.milestones]
     zone = _read(tmp_path / "out" / "zone.csv")
     assert len(zone) == len(us.zone) + 1
+    loads = _read(tmp_path / "out" / "loads.csv")
+    assert us.loads is not None and len(loads) == len(us.loads.stations) + 1
+    col = {h: i for i, h in enumerate(loads[0])}
+    for row, st in zip(loads[1:], us.loads.stations, strict=True):
+        assert row[0] == st.name
+        for key, m in us.loads.moments.items():
+            i = us.loads.stations.index(st)
+            assert float(row[col[f"moment {key} [kip*ft]"]]) == pytest.approx(
+                m[i] / 1.3558179483314004e6, rel=1e-9, abs=1e-9
+            )
     assert zone[0][:4] == ["station", "x from left end [ft]", "lowest cgs [in]", "cgs [in]"]
 
 

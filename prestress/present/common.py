@@ -2,9 +2,12 @@
 
 from __future__ import annotations
 
-from typing import Any
+from typing import TYPE_CHECKING, Any
 
 from prestress.units import ascii_label, from_internal, out_unit
+
+if TYPE_CHECKING:
+    from prestress.analysis import CheckResult
 
 CAUTION = (
     "Caution: these results must be checked by a qualified, licensed engineer; local codes, "
@@ -41,12 +44,11 @@ def fmt(v: float | None, system: str, role: str, digits: int = 3) -> str:
         return "0"
     if mag >= 1e9:
         return f"{x:.4g}"
-    if mag >= 1000:
-        return f"{x:,.0f}"
-    if mag >= 100:
-        return f"{x:.1f}"
-    if mag >= 10:
-        return f"{x:.2f}"
+    # decimals by magnitude, judged on the number as it will be printed (99.996 prints as
+    # "100.0", not "100.00")
+    for threshold, decimals in ((1000, 0), (100, 1), (10, 2)):
+        if abs(round(x, decimals)) >= threshold:
+            return f"{x:,.0f}" if decimals == 0 else f"{x:.{decimals}f}"
     return f"{x:.{digits}f}"
 
 
@@ -56,3 +58,44 @@ def signed(v: float, system: str, role: str, digits: int = 3) -> str:
     if abs(x) < 0.5 * 10**-digits:
         return f"{0:.{digits}f}"
     return f"{x:+.{digits}f}".replace("-", "−")
+
+
+#: Column titles of the loads table, in order.
+LOAD_TITLES = {
+    "girder": "Girder",
+    "deck": "Deck, haunch",
+    "diaphragms": "Diaphragms",
+    "barriers": "Barriers DC",
+    "wearing_surface": "Wearing DW",
+    "live": "LL+IM",
+}
+
+
+def live_load_text(result: CheckResult) -> str:
+    """How the live load was taken, in one sentence (with its sources)."""
+    live = result.girder.job.loads.live
+    if live.model == "HL-93":
+        text = (
+            "HL-93 (AASHTO LRFD 9th Ed. (2020) 3.6.1.2, 3.6.1.3.1): the design truck (rear axle "
+            "spacing 14 to 30 ft) or the design tandem, whichever governs, × (1 + IM) with IM = "
+            f"{live.impact:g}, plus the lane load, moved over the span; per girder with the "
+            f"moment distribution factor {live.distribution_factor:.3f} "
+            f"({live.distribution_source})"
+        )
+        if live.shear_distribution_factor is not None:
+            text += (
+                f" and the shear distribution factor {live.shear_distribution_factor:.3f} "
+                f"({live.shear_distribution_source})"
+            )
+        else:
+            text += (
+                "; no shear distribution factor (give loads.live.shear_distribution_factor "
+                "to see the live-load shear)"
+            )
+        return text
+    if live.moments_tenth_points is not None:
+        return "moments at the tenth points given in the job (with impact and distribution)"
+    return (
+        "midspan moment given in the job (with impact and distribution), distributed along "
+        "the span as a parabola"
+    )

@@ -12,7 +12,15 @@ from rich.table import Table
 from rich.text import Text
 
 from prestress.analysis import SIGN_CONVENTION, CheckResult, FiberResult, StageResult
-from prestress.present.common import CAUTION, FIBER_NAMES, fmt, label, signed
+from prestress.present.common import (
+    CAUTION,
+    FIBER_NAMES,
+    LOAD_TITLES,
+    fmt,
+    label,
+    live_load_text,
+    signed,
+)
 
 PASS = "[green]ok[/]"
 FAIL = "[bold red]FAIL[/]"
@@ -226,6 +234,48 @@ def losses(result: CheckResult, system: str) -> Table:
     return t
 
 
+def loads_table(
+    result: CheckResult, system: str, stations: tuple[str, ...] | None = None
+) -> Group | None:
+    """Unfactored moments by load and the live-load shear per girder at the span's stations."""
+    le = result.loads
+    if le is None:
+        return None
+    keys = [k for k in LOAD_TITLES if k in le.moments and le.moments[k].any()]
+    mu, fu = label(system, "moment"), label(system, "force")
+    t = Table(
+        title="Moments and shears per girder, unfactored",
+        title_justify="left",
+        title_style="bold",
+        box=box.SIMPLE_HEAD,
+        caption=(
+            f"x in {label(system, 'position')} from the left bearing; moments in {mu}, "
+            f"sagging +; V in {fu}, + where the girder left of the section is pushed up. "
+            "Girder weight on the bearings; deck, haunch and diaphragms on the girder alone; "
+            "barriers, wearing surface and live load on the composite section."
+        ),
+        caption_justify="left",
+    )
+    t.add_column("Station", no_wrap=True)
+    t.add_column("x", justify="right", no_wrap=True)
+    for k in keys:
+        t.add_column(LOAD_TITLES[k], justify="right", no_wrap=True)
+    if le.shear_live is not None:
+        t.add_column("V LL+IM max", justify="right", no_wrap=True)
+        t.add_column("V LL+IM min", justify="right", no_wrap=True)
+    a = result.girder.job.bearing_offset
+    for i, st in enumerate(le.stations):
+        if stations is not None and not any(w.lower() in st.name.lower() for w in stations):
+            continue
+        cells = [st.name, fmt(st.x - a, system, "position", 2)]
+        cells += [fmt(float(le.moments[k][i]), system, "moment", 1) for k in keys]
+        if le.shear_live is not None:
+            cells += [fmt(float(v[i]), system, "force", 1) for v in le.shear_live]
+        t.add_row(*(Text(c) for c in cells))
+    live = Text.from_markup(f"[dim]Live load: {live_load_text(result)}.[/]")
+    return Group(t, live, Text(""))
+
+
 def _cell(f: FiberResult | None, system: str) -> str:
     if f is None:
         return ""
@@ -398,6 +448,9 @@ def render(
     console.print(header(result, system))
     console.print(properties(result, system))
     console.print(losses(result, system))
+    table = loads_table(result, system, stations)
+    if table is not None:
+        console.print(table)
     for i, stage in enumerate(result.stages, 1):
         if stages is not None and stage.key not in stages:
             continue

@@ -1,4 +1,4 @@
-"""CSV export of a check: one file per stage table, the losses and the permissible zone.
+"""CSV export of a check: one file per stage table, the loads, the losses and the zone.
 
 Every file has one header row; each column's name carries its unit in square brackets
 (``x [ft]``, ``stress girder_bottom [ksi]``) in the output system, written as plain ASCII
@@ -18,7 +18,7 @@ from typing import Any
 
 from prestress.analysis import CheckResult, StageResult
 from prestress.errors import InputError
-from prestress.present.common import value
+from prestress.present.common import LOAD_TITLES, value
 from prestress.units import ascii_label, out_unit
 
 FIBERS = ("girder_bottom", "girder_top", "deck_top")
@@ -206,10 +206,32 @@ def zone_rows(result: CheckResult, system: str) -> list[list[str]]:
     return rows
 
 
+def loads_rows(result: CheckResult, system: str) -> list[list[str]]:
+    """Unfactored moments by load and the live-load shear per girder at the span's stations."""
+    le = result.loads
+    if le is None:
+        return []
+    pu, mu, fu = _unit(system, "position"), _unit(system, "moment"), _unit(system, "force")
+    keys = [k for k in LOAD_TITLES if k in le.moments]
+    header = ["station", f"x from left end [{pu}]", f"x from left bearing [{pu}]"]
+    header += [f"moment {k} [{mu}]" for k in keys]
+    if le.shear_live is not None:
+        header += [f"shear live max [{fu}]", f"shear live min [{fu}]"]
+    rows = [header]
+    a = result.girder.job.bearing_offset
+    for i, st in enumerate(le.stations):
+        row = [st.name, _num(st.x, system, "position"), _num(st.x - a, system, "position")]
+        row += [_num(float(le.moments[k][i]), system, "moment") for k in keys]
+        if le.shear_live is not None:
+            row += [_num(float(v[i]), system, "force") for v in le.shear_live]
+        rows.append(row)
+    return rows
+
+
 def write_csv(
     result: CheckResult, folder: str | Path, system: str | None = None, *, force: bool = False
 ) -> list[Path]:
-    """Write the check as CSV files in a folder: ``<stage key>.csv``, ``losses.csv``, ``zone.csv``.
+    """Write the check as CSV files: one per stage, ``loads.csv``, ``losses.csv``, ``zone.csv``.
 
     Every target is checked before anything is written, so a refusal leaves the folder as it
     was. The folder is created when missing.
@@ -221,7 +243,7 @@ def write_csv(
         force: replace existing files.
 
     Returns:
-        The files written, in order (stages in time order, then losses, then zone).
+        The files written, in order (stages in time order, then loads, losses and zone).
 
     Raises:
         InputError: a target exists and ``force`` is not set, or the folder is a file.
@@ -233,6 +255,8 @@ def write_csv(
     tables: list[tuple[Path, list[list[str]]]] = [
         (out / f"{s.key}.csv", stage_rows(s, system)) for s in result.stages
     ]
+    if result.loads is not None:
+        tables.append((out / "loads.csv", loads_rows(result, system)))
     tables.append((out / "losses.csv", losses_rows(result, system)))
     tables.append((out / "zone.csv", zone_rows(result, system)))
     job_file = Path(result.girder.job.file) if result.girder.job.file else None

@@ -11,7 +11,7 @@ from typing import Any
 
 from prestress import __version__
 from prestress.analysis import SIGN_CONVENTION, CheckResult, FiberResult, StationResult
-from prestress.present.common import CAUTION, quantity
+from prestress.present.common import CAUTION, live_load_text, quantity
 
 SCHEMA = "prestress.check/1"
 
@@ -39,6 +39,52 @@ def _station(s: StationResult, system: str) -> dict[str, Any]:
         "cgs_height": quantity(s.cgs, system, "dimension"),
         "fibers": {k: _fiber(f, system) for k, f in s.fibers.items()},
         "ok": s.ok,
+    }
+
+
+def _shear(shear: tuple | None, which: int, i: int, system: str) -> dict[str, Any] | None:
+    return None if shear is None else quantity(float(shear[which][i]), system, "force")
+
+
+def _loads(result: CheckResult, system: str) -> dict[str, Any] | None:
+    """Unfactored moments by load and the live-load shear per girder, with the live load."""
+    le = result.loads
+    if le is None:
+        return None
+    live = result.girder.job.loads.live
+    a = result.girder.job.bearing_offset
+    shear = le.shear_live
+    return {
+        "live_load": {
+            "model": live.model,
+            "impact": live.impact if live.model == "HL-93" else None,
+            "distribution_factor_moment": live.distribution_factor
+            if live.model == "HL-93"
+            else None,
+            "distribution_factor_moment_source": live.distribution_source
+            if live.model == "HL-93"
+            else None,
+            "distribution_factor_shear": live.shear_distribution_factor,
+            "distribution_factor_shear_source": live.shear_distribution_source or None,
+            "description": live_load_text(result),
+        },
+        "stations": [
+            {
+                "name": st.name,
+                "position_from_girder_end": quantity(st.x, system, "position"),
+                "position_from_bearing": quantity(st.x - a, system, "position"),
+                "moments": {
+                    k: quantity(float(v[i]), system, "moment") for k, v in le.moments.items()
+                },
+                "shear_live_max": None
+                if shear is None
+                else quantity(float(shear[0][i]), system, "force"),
+                "shear_live_min": None
+                if shear is None
+                else quantity(float(shear[1][i]), system, "force"),
+            }
+            for i, st in enumerate(le.stations)
+        ],
     }
 
 
@@ -130,6 +176,7 @@ def to_dict(result: CheckResult, system: str | None = None) -> dict[str, Any]:
             "transfer_length": quantity(job.transfer_length, system, "dimension"),
         },
         "losses": losses,
+        "loads": _loads(result, system),
         "stages": stages,
         "zone": [
             {

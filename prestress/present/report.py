@@ -32,7 +32,16 @@ from prestress import __version__
 from prestress.analysis import SIGN_CONVENTION, CheckResult, FiberResult, StageResult
 from prestress.errors import InputError
 from prestress.losses import LossComponent
-from prestress.present.common import CAUTION, FIBER_NAMES, fmt, label, signed, value
+from prestress.present.common import (
+    CAUTION,
+    FIBER_NAMES,
+    LOAD_TITLES,
+    fmt,
+    label,
+    live_load_text,
+    signed,
+    value,
+)
 
 # ------------------------------------------------------------------------------------------
 # Blocks of the document
@@ -1007,6 +1016,39 @@ def _stage_blocks(stage: StageResult, number: int, system: str) -> list:
     return out
 
 
+def _loads(result: CheckResult, system: str) -> Section | None:
+    le = result.loads
+    if le is None:
+        return None
+    sec = Section("loads", "Moments and shears per girder")
+    pu, mu, fu = label(system, "position"), label(system, "moment"), label(system, "force")
+    keys = [k for k in LOAD_TITLES if k in le.moments and le.moments[k].any()]
+    head = ["Station", f"x from bearing ({pu})", *[f"{LOAD_TITLES[k]} ({mu})" for k in keys]]
+    if le.shear_live is not None:
+        head += [f"V LL+IM max ({fu})", f"V LL+IM min ({fu})"]
+    a = result.girder.job.bearing_offset
+    rows = []
+    for i, st in enumerate(le.stations):
+        cells = [_c(st.name), _n(_f(st.x - a, system, "position", 2))]
+        cells += [_n(_f(float(le.moments[k][i]), system, "moment", 1)) for k in keys]
+        if le.shear_live is not None:
+            cells += [_n(_f(float(v[i]), system, "force", 1)) for v in le.shear_live]
+        rows.append(tuple(cells))
+    sec.blocks.append(
+        Table(
+            tuple(head),
+            tuple(rows),
+            "Unfactored moments (sagging +) and live-load shears (+ where the girder left of "
+            "the section is pushed up). Girder weight on the bearings; deck, haunch and "
+            "diaphragms on the girder alone; barriers (DC), wearing surface (DW) and live load "
+            "on the composite section.",
+            "wide",
+        )
+    )
+    sec.blocks.append(Para(f"Live load: {live_load_text(result)}."))
+    return sec
+
+
 def _stresses(result: CheckResult, system: str) -> Section:
     sec = Section("stresses", "Fiber stresses by stage")
     sec.blocks.append(
@@ -1294,6 +1336,7 @@ def build(
         _inputs(result, system),
         _section(result, system, drawing),
         _losses(result, system),
+        *([loads] if (loads := _loads(result, system)) is not None else []),
         _stresses(result, system),
         _governing(result, system),
         _zone(result, system),
