@@ -636,6 +636,9 @@ def run_check(job: Job, *, cli_libraries: tuple[str, ...] = ()) -> CheckResult:
         stage_notes = []
         if raw.note:
             stage_notes.append(raw.note)
+        combo = job.combinations.get(spec.key)
+        if combo is not None and combo.source and spec.live > 0:
+            stage_notes.append(f"load factors: {combo.source}")
         if (
             "live" in spec.loads
             and job.loads.live.model == "given"

@@ -325,10 +325,11 @@ class LimitSet:
 
 @dataclass(frozen=True)
 class Combination:
-    """Load factors of a service combination."""
+    """Load factors of a service combination, and where they come from."""
 
     dead: float
     live: float
+    source: str = ""
 
 
 @dataclass(frozen=True)

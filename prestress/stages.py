@@ -52,17 +52,21 @@ class Station:
 def stations(girder: Girder) -> list[Station]:
     """Every station an engineer checks, de-duplicated (within 1 mm) and sorted.
 
-    The ends, the bearings, the transfer-length points, each hold-down, each debond end and
-    the end of its transfer length, the tenth points of the design span and the job's own.
+    The ends, the bearings, the transfer-length points (pretensioned), each hold-down, each
+    debond end and the end of its transfer length, the lifting points (with handling), the
+    tenth points of the design span and the job's own.
     """
     job = girder.job
     L, lt, a, S = job.length, job.transfer_length, job.bearing_offset, job.span
     raw: list[tuple[str, float]] = [("left end", 0.0), ("right end", L)]
     if a > 0:
         raw += [("left bearing", a), ("right bearing", L - a)]
-    raw += [("left lt", lt), ("right lt", L - lt)]
-    if job.layout is not None:
+    if job.layout is not None:  # pretensioned: the ends of the transfer length
+        raw += [("left lt", lt), ("right lt", L - lt)]
         raw += job.layout.key_positions()
+    if job.handling is not None:  # the greatest negative moment while lifting
+        lp = job.handling.lift_point
+        raw += [("left lift point", lp), ("right lift point", L - lp)]
     for t in job.tendons:
         for i, (xt, _y) in enumerate(zip(t.x, t.y, strict=True)):
             if 0 < i < len(t.x) - 1:
