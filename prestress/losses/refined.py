@@ -3,7 +3,7 @@
 Gathers the section, material, load and age figures the estimate needs at midspan, converts
 them once to ksi/in/kip, and calls :func:`prestress.codes.aashto_lrfd.refined_losses`.
 Δfcd depends on the losses between transfer and deck placement, which depend on nothing
-after it, so it is found by substitution (two passes reproduce it to round-off).
+after deck placement: a first evaluation gives them, a second one uses them in Δfcd (exact).
 """
 
 from __future__ import annotations
@@ -50,8 +50,15 @@ def deck_volume_to_surface(girder: Girder) -> float:
     return b * t / exposed
 
 
-def refined_input(girder: Girder, f_pt: float) -> rl.RefinedLossInput:
-    """The refined estimate's inputs at midspan, in ksi/in/kip, from the resolved girder."""
+def refined_input(girder: Girder, f_pt: float, loss_id: float = 0.0) -> rl.RefinedLossInput:
+    """The refined estimate's inputs at midspan, in ksi/in/kip, from the resolved girder.
+
+    Args:
+        girder: the resolved girder.
+        f_pt: strand stress just after transfer, MPa.
+        loss_id: the time-dependent losses between transfer and deck placement, ksi, that
+            enter Δfcd (0 for a first evaluation).
+    """
     job = girder.job
     if job.deck is None or girder.composite_section is None:
         raise InputError(
@@ -98,7 +105,7 @@ def refined_input(girder: Girder, f_pt: float) -> rl.RefinedLossInput:
         strand="low_relaxation" if job.strand.relaxation == "low" else "stress_relieved",
         f_cgp=f_cgp / KSI_MPA,
         delta_f_cd=rl.delta_f_cd(
-            0.0,
+            loss_id,
             job.A_ps / inch2,
             g.area / inch2,
             g.Ix / inch4,
@@ -118,34 +125,13 @@ def refined_input(girder: Girder, f_pt: float) -> rl.RefinedLossInput:
 @register("aashto-refined")
 def aashto_refined(girder: Girder) -> LossBreakdown:
     """Elastic shortening (C5.9.3.2.3a-1) and the refined estimate (5.9.3.4)."""
-    from dataclasses import replace
-
     job = girder.job
     es_comp, figures = elastic_shortening_component(girder)
     f_pt = job.strand.stress_before_transfer - es_comp.value
-    inp = refined_input(girder, f_pt)
+    # Δfcd includes the losses between transfer and deck placement, which do not depend on it
+    first = rl.refined_losses(refined_input(girder, f_pt))
+    inp = refined_input(girder, f_pt, first.loss_id)
     res = rl.refined_losses(inp)
-    # Δfcd includes the losses between transfer and deck placement acting on the girder:
-    g = girder.gross
-    c = girder.composite_section
-    assert c is not None
-    inch2, inch4, kipin = INCH_MM**2, INCH_MM**4, KIP_N * INCH_MM
-    M_deck = midspan_noncomposite_moment(girder) / kipin
-    M_sdl = (job.loads.superimposed_dead + job.loads.wearing_surface) * job.span**2 / 8.0 / kipin
-    for _ in range(2):
-        dfcd = rl.delta_f_cd(
-            res.loss_id,
-            inp.A_ps,
-            g.area / inch2,
-            g.Ix / inch4,
-            inp.e_pg,
-            M_deck,
-            M_sdl,
-            c.I / inch4,
-            inp.e_pc,
-        )
-        inp = replace(inp, delta_f_cd=dfcd)
-        res = rl.refined_losses(inp)
     k = KSI_MPA
     id_, df = "transfer to deck placement", "deck placement to final"
     comps = [
@@ -219,7 +205,20 @@ def aashto_refined(girder: Girder) -> LossBreakdown:
             "V/S deck": (inp.V_S_deck * INCH_MM, "dimension"),
         }
     )
+    figures.update(
+        {
+            "f'ci deck (0.80 f'c, 5.4.2.3.2)": (res.f_ci_deck * k, "stress"),
+            "kf deck": (res.k_f_deck, "ratio"),
+        }
+    )
     deck_stress = f_pt - res.loss_id * k
+    notes = [
+        "refined estimate: girder shrinkage counted from transfer (transfer taken as the end "
+        "of curing, common practice); deck shrinkage and creep from deck placement with the "
+        f"deck f'ci = 0.80 f'c ({CLAUSE} 5.4.2.3.2) and a loading age of the deck of "
+        f"{inp.t_i_deck:g} day for ψd; the deck's V/S with its soffit over the top flange "
+        "not exposed (common practice)",
+    ]
     return finish(
         girder,
         method="aashto-refined",
@@ -227,6 +226,6 @@ def aashto_refined(girder: Girder) -> LossBreakdown:
         "with creep and shrinkage of 5.4.2.3",
         components=comps,
         figures=figures,
-        notes=[],
+        notes=notes,
         deck_stress=deck_stress,
     )
