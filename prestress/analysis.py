@@ -65,6 +65,7 @@ class Girder:
     section_transfer: AssembledSection | None = None
     section_service: AssembledSection | None = None
     section_composite: AssembledSection | None = None
+    family: str = ""
 
     @property
     def polygon(self):
@@ -93,7 +94,7 @@ def resolve_girder(job: Job, *, cli_libraries: tuple[str, ...] = ()) -> Girder:
         resolved = resolve_definition(
             ref.family, ref.dimensions, file=job.file, field="girder.section.dimensions"
         )
-        name, source = ref.name, "defined in the job file"
+        name, source, family = ref.name, "defined in the job file", ref.family
     else:
         lib = load_library(search_folders(job.library_paths, cli_libraries))
         entry = lib.get(ref.name, file=job.file, field="girder.section")
@@ -101,7 +102,7 @@ def resolve_girder(job: Job, *, cli_libraries: tuple[str, ...] = ()) -> Girder:
         resolved = resolve_definition(
             entry.family, entry.dimensions, file=entry.file, field=f"{entry.field}.dimensions"
         )
-        name, source = entry.name, entry.source
+        name, source, family = entry.name, entry.source, entry.family
     _check_strands_inside(job, resolved)
     gross = resolved.gross
     girder_section = noncomposite(gross)
@@ -154,6 +155,7 @@ def resolve_girder(job: Job, *, cli_libraries: tuple[str, ...] = ()) -> Girder:
         section_transfer=sec_t,
         section_service=sec_s,
         section_composite=sec_c,
+        family=family or "",
     )
 
 
@@ -538,7 +540,14 @@ def zone_at(
 
 
 def development_length_notes(girder: Girder, losses: LossBreakdown) -> list[str]:
-    """The development length of the strands (AASHTO LRFD 5.9.4.3.2), reported as notes.
+    """The development length of the strands (AASHTO LRFD 5.9.4.3.2), reported as notes."""
+    return development_lengths(girder, losses)[1]
+
+
+def development_lengths(
+    girder: Girder, losses: LossBreakdown
+) -> tuple[dict[bool, float], list[str]]:
+    """ld of bonded (key False) and debonded (key True) strands, mm, and the notes on them.
 
     fps at midspan for rectangular behaviour of the composite section (the deck as the
     compression flange; the girder's top flange without a deck), Eq. 5.6.3.1.1-1.
@@ -548,7 +557,7 @@ def development_length_notes(girder: Girder, losses: LossBreakdown) -> list[str]
 
     job = girder.job
     if job.post_tensioned or job.layout is None:
-        return []
+        return {}, []
     g = girder.gross
     if job.deck is not None:
         top = g.height + job.deck.haunch + job.deck.thickness
@@ -568,11 +577,13 @@ def development_length_notes(girder: Girder, losses: LossBreakdown) -> list[str]
     fpe = losses.f_pe / KSI_MPA
     depth_in = top / INCH_MM
     out = []
+    lengths: dict[bool, float] = {}
     for debonded in (False, True):
         if debonded and not any(s.debonded for s in job.layout.sets):
             continue
         kappa = m.kappa_development(depth_in, debonded)
         ld = m.l_d(kappa, fps, fpe, job.strand.diameter / INCH_MM)
+        lengths[debonded] = ld * INCH_MM
         kind = "debonded strands" if debonded else "bonded strands"
         out.append(
             f"development length of the {kind}: ld = {ld:.0f} in ({ld / 12:.1f} ft; "
@@ -584,7 +595,29 @@ def development_length_notes(girder: Girder, losses: LossBreakdown) -> list[str]
             "the neutral axis at nominal resistance lies below the deck (c = "
             f"{c:.1f} in): fps assumed rectangular behaviour; check T-section behaviour"
         )
-    return out
+    return lengths, out
+
+
+#: Families whose section has one web (the debonding rule on strands within the web).
+SINGLE_WEB_FAMILIES = ("i_girder", "bulb_tee", "inverted_tee")
+
+
+def web_half_width(girder: Girder) -> float | None:
+    """Half the web width at mid-depth of a single-web section (mm); None for others.
+
+    Read off the outline: the horizontal extent of the exterior ring at half the depth.
+    """
+    if girder.family not in SINGLE_WEB_FAMILIES:
+        return None
+    ring = np.asarray(girder.outline.exterior, dtype=float)
+    y = girder.gross.height / 2.0
+    a, b = ring, np.roll(ring, -1, axis=0)
+    crosses = (a[:, 1] - y) * (b[:, 1] - y) < 0
+    if not crosses.any():
+        return None
+    t = (y - a[crosses, 1]) / (b[crosses, 1] - a[crosses, 1])
+    xs = a[crosses, 0] + t * (b[crosses, 0] - a[crosses, 0])
+    return float(xs.max() - xs.min()) / 2.0
 
 
 def run_check(job: Job, *, cli_libraries: tuple[str, ...] = ()) -> CheckResult:
@@ -666,14 +699,21 @@ def run_check(job: Job, *, cli_libraries: tuple[str, ...] = ()) -> CheckResult:
             )
         )
     zone = zone_at(girder, losses, all_st, raws)
-    notes += development_length_notes(girder, losses)
+    lds, ld_notes = development_lengths(girder, losses)
+    notes += ld_notes
     if job.layout is not None:
         from prestress.layout import debonding_warnings
 
+        longest = None
+        if True in lds:  # simple span: min(0.2 S, S/2 − ld), 5.9.4.3.3 of the 9th Ed.
+            longest = min(0.2 * job.span, job.span / 2.0 - lds[True])
         notes += [
             f"detailing: {w}"
             for w in debonding_warnings(
-                job.layout, [r.x if r.x else tuple(r.x_positions()) for r in job.rows]
+                job.layout,
+                [r.x if r.x else tuple(r.x_positions()) for r in job.rows],
+                web_half_width=web_half_width(girder),
+                max_debonded_length=longest,
             )
         ]
     return CheckResult(

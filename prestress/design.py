@@ -1363,7 +1363,10 @@ def _describe(space: DesignSpace, enum: Enumeration, system: str) -> tuple[tuple
                 f"row and {100 * r['max_share_total']:.0f} % of all strands debonded; at most "
                 f"max({r['max_terminations_count']:g}, {100 * r['max_terminations_share']:.0f} % "
                 "of the debonded strands) ending at one section; symmetric; exterior strands of "
-                "each row bonded (AASHTO LRFD 9th Ed. (2020) 5.9.4.3.3, limits from memory)",
+                "each row bonded (AASHTO LRFD 9th Ed. (2020) 5.9.4.3.3; the total share is kept "
+                "at or below its limit, stricter than the 9th Ed., which allows more with the "
+                "strands within the web bonded); the debonded lengths are checked by "
+                "'prestress check'",
             )
         )
         lines.append(

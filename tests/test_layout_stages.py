@@ -57,9 +57,51 @@ def test_debonding_warnings_name_the_clause() -> None:
     )
     w = debonding_warnings(Layout(sets, L, lt), [xs])
     assert any("outer position" in m for m in w)
-    assert any("symmetric" in m for m in w)
     assert any("25 %" in m for m in w)  # 2 of 6 = 33 % > 25 % of the total
     assert all("5.9.4.3.3" in m for m in w)
+    # different lengths at the two ends are no rule of 5.9.4.3.3 (both ends are checked)
+    assert not any("differ" in m for m in w)
+
+
+def test_debonding_rules_of_the_9th_edition() -> None:
+    # AASHTO LRFD 9th Ed. (2020) 5.9.4.3.3 as summarised by O. Bayrak, ASPIRE 2019: at most
+    # 45 % of a row debonded; debonded length at most min(0.2 S, S/2 − ld); with more than
+    # 25 % of all strands debonded, the strands within the web's width bonded (from memory).
+    L, lt = 100 * FT, 36 * IN
+    xs = tuple((np.arange(10) - 4.5) * 2 * IN)  # 10 strands, 2 in apart, x = ±1 ... ±9 in
+    inner = (xs[4], xs[5])  # x = ±1 in: under a 6 in web
+    mid = (xs[2], xs[7], xs[3], xs[6])  # x = ±5, ±3 in
+    sets = (
+        StrandSet("bonded", 0, (xs[0], xs[1], xs[8], xs[9]), 140.0, 2 * IN),
+        StrandSet("d1", 0, inner, 140.0, 2 * IN, debond_left=10 * FT, debond_right=10 * FT),
+        StrandSet("d2", 0, mid, 140.0, 2 * IN, debond_left=22 * FT, debond_right=22 * FT),
+    )
+    layout = Layout(sets, L, lt)
+    w = debonding_warnings(layout, [xs], web_half_width=3 * IN, max_debonded_length=20 * FT)
+    # 6 of 10 in the row: 60 % > 45 %
+    assert any("row 1: 6 of 10" in m and "45 %" in m for m in w)
+    # 6 of 10 in all > 25 %: the strands at x = ±1 in and ±3 in lie within the 6 in web
+    assert any("within the horizontal limits of the web" in m and "4 debonded" in m for m in w)
+    # d2 debonded 22 ft > 20 ft
+    assert any("d2: debonded for 22.00 ft" in m for m in w)
+    assert not any("d1: debonded" in m for m in w)
+    # without the web width (a box, say) the share itself is reported
+    w = debonding_warnings(layout, [xs])
+    assert any("6 of 10 strands debonded (60 %)" in m for m in w)
+
+
+def test_debond_terminations_counted_at_each_end() -> None:
+    # not more than max(4, 40 % of the debonded strands) terminating at one section (from
+    # memory); here 6 strands end 10 ft from the right end only
+    L, lt = 100 * FT, 36 * IN
+    xs = tuple((np.arange(20) - 9.5) * 2 * IN)
+    sets = (
+        StrandSet("bonded", 0, xs[:7] + xs[13:], 140.0, 2 * IN),
+        StrandSet("d", 0, xs[7:13], 140.0, 2 * IN, debond_left=5 * FT, debond_right=10 * FT),
+    )
+    w = debonding_warnings(Layout(sets, L, lt), [xs], web_half_width=None)
+    assert any("6 debonded strands terminate at 10.00 ft from the right end" in m for m in w)
+    assert any("6 debonded strands terminate at 5.00 ft from the left end" in m for m in w)
 
 
 def test_stations_include_every_critical_point() -> None:
