@@ -120,6 +120,11 @@ def resolve_girder(job: Job, *, cli_libraries: tuple[str, ...] = ()) -> Girder:
         deck_weight += w * (deck.thickness + deck.wearing_surface) * deck.tributary_width
         deck_weight += w * deck.haunch * deck.haunch_width
     sec_t, sec_s, sec_c = girder_section, girder_section, comp
+    if job.post_tensioned:  # at stressing the ducts are open: the girder net of the ducts
+        from prestress.sections.composite import section_at_stressing
+
+        sec_t, open_ducts = section_at_stressing(gross, job.tendons, job.length / 2.0)
+        notices.append(open_ducts)
     if job.loss_basis == "transformed":
         gc = job.girder_concrete
         assert gc.Eci is not None
@@ -598,6 +603,48 @@ def development_lengths(
     return lengths, out
 
 
+#: Stress in the bonded reinforcement that carries the tensile force at release, MPa:
+#: 0.5 fy ≤ 30 ksi (AASHTO LRFD 9th Ed. (2020) Table 5.9.2.3.1b-1, from memory), with
+#: fy ≥ 60 ksi.
+RELEASE_STEEL_STRESS_MPA = 30.0 * 6.894757293168361
+
+
+def release_tension_steel_notes(girder: Girder, raw, stations: list[StationResult]) -> list[str]:  # type: ignore[no-untyped-def]
+    """Where the girder is in tension at release or handling: the bonded steel it needs.
+
+    AASHTO LRFD 9th Ed. (2020) Table 5.9.2.3.1b-1 (from memory): the higher tension limit
+    (0.24 λ√f'ci) applies only with bonded reinforcement sufficient to resist the tensile
+    force in the concrete computed on an uncracked section, proportioned at 0.5 fy ≤ 30 ksi.
+    The note gives the largest tensile force over the stations and the steel it needs.
+    """
+    from prestress.stages import tensile_force
+    from prestress.units import INCH_MM, KIP_N
+
+    ext = np.asarray(girder.outline.exterior, dtype=float)
+    holes = [np.asarray(h, dtype=float) for h in girder.outline.holes]
+    h = girder.gross.height
+    best: tuple[float, StationResult] | None = None
+    for st in stations:
+        fb, ft = st.fibers.get("girder_bottom"), st.fibers.get("girder_top")
+        if fb is None or ft is None or (fb.stress <= 0 and ft.stress <= 0):
+            continue
+        force = tensile_force(ext, holes, fb.stress, ft.stress, h)
+        # the first of equal forces (symmetric girders) in any unit system: beyond round-off
+        if best is None or force > best[0] * (1.0 + 1e-9) + 1e-6:
+            best = (force, st)
+    if best is None or best[0] <= 0.0:
+        return []
+    force, st = best
+    As = force / RELEASE_STEEL_STRESS_MPA
+    return [
+        f"tension in the girder at {st.name}: tensile force {force / KIP_N:.1f} kip "
+        f"({force / 1000:.0f} kN) on the uncracked section; bonded reinforcement of at least "
+        f"{As / INCH_MM**2:.2f} in² ({As:.0f} mm²) at 0.5 fy ≤ 30 ksi carries it, which the "
+        "higher tension limit at release requires (AASHTO LRFD 9th Ed. (2020) Table "
+        "5.9.2.3.1b-1, from memory)"
+    ]
+
+
 #: Families whose section has one web (the debonding rule on strands within the web).
 SINGLE_WEB_FAMILIES = ("i_girder", "bulb_tee", "inverted_tee")
 
@@ -672,6 +719,8 @@ def run_check(job: Job, *, cli_libraries: tuple[str, ...] = ()) -> CheckResult:
         combo = job.combinations.get(spec.key)
         if combo is not None and combo.source and spec.live > 0:
             stage_notes.append(f"load factors: {combo.source}")
+        if spec.strength == "fci":
+            stage_notes += release_tension_steel_notes(girder, raw, st_results)
         if (
             "live" in spec.loads
             and job.loads.live.model == "given"

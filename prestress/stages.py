@@ -380,6 +380,71 @@ def stage_stresses(
 
 
 # ------------------------------------------------------------------------------------------
+# Tensile force on the uncracked section (for the bonded reinforcement at release)
+
+
+def _clip_ring(ring: np.ndarray, y0: float, keep_above: bool) -> np.ndarray:
+    """The part of a closed ring on one side of the line y = y0 (Sutherland–Hodgman)."""
+    pts = ring[:-1] if np.allclose(ring[0], ring[-1]) else ring
+    out: list[np.ndarray] = []
+    n = len(pts)
+    for i in range(n):
+        a, b = pts[i], pts[(i + 1) % n]
+        ina = a[1] >= y0 if keep_above else a[1] <= y0
+        inb = b[1] >= y0 if keep_above else b[1] <= y0
+        if ina:
+            out.append(a)
+        if ina != inb:
+            t = (y0 - a[1]) / (b[1] - a[1])
+            out.append(a + t * (b - a))
+    return np.array(out) if out else np.zeros((0, 2))
+
+
+def _area_and_centroid_y(ring: np.ndarray) -> tuple[float, float]:
+    """Area (absolute) and centroid height of a polygon ring (shoelace formula)."""
+    if len(ring) < 3:
+        return 0.0, 0.0
+    x, y = ring[:, 0], ring[:, 1]
+    x2, y2 = np.roll(x, -1), np.roll(y, -1)
+    cross = x * y2 - x2 * y
+    a = cross.sum() / 2.0
+    if abs(a) < 1e-12:
+        return 0.0, 0.0
+    return abs(a), float(((y + y2) * cross).sum() / (6.0 * a))
+
+
+def tensile_force(
+    exterior: np.ndarray, holes: list[np.ndarray], f_bottom: float, f_top: float, height: float
+) -> float:
+    """Resultant of the tensile stresses on an uncracked section, N (0 without tension).
+
+    The stress varies linearly from ``f_bottom`` at y = 0 to ``f_top`` at y = ``height``
+    (MPa, tension +). Over the tensile part of the section (clipped at the neutral axis),
+    the integral of a linear stress is its value at the part's centroid times the part's
+    area (exact). Used for the bonded reinforcement that AASHTO LRFD Table 5.9.2.3.1b-1 asks
+    for with the higher tension limit at release.
+    """
+    if f_bottom <= 0.0 and f_top <= 0.0:
+        return 0.0
+
+    def stress(y: float) -> float:
+        return f_bottom + (f_top - f_bottom) * y / height
+
+    if f_bottom > 0.0 and f_top > 0.0:
+        rings, y0, above = [exterior, *holes], None, True
+    else:
+        y0 = height * f_bottom / (f_bottom - f_top)  # neutral axis
+        above = f_top > 0.0
+        rings = [exterior, *holes]
+    force = 0.0
+    for k, ring in enumerate(rings):
+        part = ring if y0 is None else _clip_ring(np.asarray(ring, dtype=float), y0, above)
+        area, yc = _area_and_centroid_y(np.asarray(part, dtype=float))
+        force += (1.0 if k == 0 else -1.0) * area * stress(yc)
+    return max(force, 0.0)
+
+
+# ------------------------------------------------------------------------------------------
 # The permissible zone of the cgs
 
 

@@ -81,7 +81,7 @@ def before_transfer(girder: Girder) -> list[LossComponent]:
     """The losses in the bed before transfer given by the job (fpj − fpbt), if any."""
     strand = girder.job.strand
     before = strand.jacking_stress - strand.stress_before_transfer
-    if before <= 0:
+    if before <= 1e-9 * strand.jacking_stress:  # equal within round-off: no loss given
         return []
     return [
         LossComponent(
