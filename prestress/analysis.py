@@ -645,6 +645,37 @@ def release_tension_steel_notes(girder: Girder, raw, stations: list[StationResul
     ]
 
 
+def deck_shrinkage_notes(girder: Girder, losses: LossBreakdown) -> list[str]:
+    """What the check does with the stresses of the deck's shrinkage, with their size.
+
+    Applied (``[loads] deck_shrinkage`` > 0): the force and its factor. Not applied while the
+    loss method credits the prestress gain from deck shrinkage: the stresses left out.
+    """
+    from prestress.losses.refined import deck_shrinkage_force
+    from prestress.stages import deck_shrinkage_stresses
+    from prestress.units import KSI_MPA
+
+    job = girder.job
+    if job.deck is None or girder.section_composite is None:
+        return []
+    factor = job.loads.deck_shrinkage
+    text = deck_shrinkage_force(girder)[1]
+    if factor > 0:
+        return [f"{text}; applied × {factor:g} in the final service stages"]
+    if not any(c.key == "deck_shrinkage_gain" for c in losses.components):
+        return []
+    from dataclasses import replace
+
+    one = replace(girder, job=replace(job, loads=replace(job.loads, deck_shrinkage=1.0)))
+    f = deck_shrinkage_stresses(one)
+    return [
+        f"the losses credit the prestress gain from deck shrinkage, but the stresses of the "
+        f"{text} are not applied: {f['girder_bottom'] / KSI_MPA:+.3f} ksi at the girder "
+        f"bottom, {f['girder_top'] / KSI_MPA:+.3f} ksi at its top along the span; "
+        "[loads] deck_shrinkage = 1 (or the owner's factor) applies them"
+    ]
+
+
 #: Families whose section has one web (the debonding rule on strands within the web).
 SINGLE_WEB_FAMILIES = ("i_girder", "bulb_tee", "inverted_tee")
 
@@ -748,6 +779,7 @@ def run_check(job: Job, *, cli_libraries: tuple[str, ...] = ()) -> CheckResult:
             )
         )
     zone = zone_at(girder, losses, all_st, raws)
+    notes += deck_shrinkage_notes(girder, losses)
     lds, ld_notes = development_lengths(girder, losses)
     notes += ld_notes
     if job.layout is not None:

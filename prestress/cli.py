@@ -361,6 +361,8 @@ def cmd_losses(args: argparse.Namespace) -> int:
     """``prestress losses JOB [--compare] [--method M] [--json]``."""
     import json
 
+    from rich.markup import escape
+
     from prestress.analysis import compare_losses, losses_file
     from prestress.jobfile import LOSS_METHODS
     from prestress.present import losses_view as view
@@ -405,7 +407,7 @@ def cmd_losses(args: argparse.Namespace) -> int:
     if args.compare:
         console.print(view.compare_table(results, job.A_ps, system))
         for s in skipped:
-            console.print(f"[dim]Not applicable: {s}[/]")
+            console.print(f"[dim]Not applicable: {escape(s)}[/]")
     else:
         if job.post_tensioned:
             for t in view.tendon_tables(girder, system):
@@ -413,7 +415,7 @@ def cmd_losses(args: argparse.Namespace) -> int:
         for t in view.stage_tables(chosen, job.A_ps, system):
             console.print(t)
         for n in chosen.notes:
-            console.print(f"[dim]Note: {n}[/]")
+            console.print(f"[dim]Note: {escape(n)}[/]")
     console.print(f"[yellow]{CAUTION}[/]")
     return EXIT_OK
 
@@ -429,6 +431,8 @@ def _cli_quantity(value: str | None, kind: str, option: str) -> float | None:
 def cmd_sections(args: argparse.Namespace) -> int:
     """``prestress sections``: list the library."""
     import json
+
+    from rich.markup import escape
 
     from prestress.present.console import make_console
     from prestress.present.sections_view import listing_json, listing_table
@@ -450,7 +454,7 @@ def cmd_sections(args: argparse.Namespace) -> int:
     console = make_console()
     console.print(listing_table(rows, w, system))
     for n in lib.notices:
-        console.print(f"[dim]Note: {n}[/]")
+        console.print(f"[dim]Note: {escape(n)}[/]")
     return EXIT_OK
 
 
@@ -459,6 +463,8 @@ def cmd_section(args: argparse.Namespace) -> int:
     if args.section_command == "draw":
         return _section_draw(args)
     import json
+
+    from rich.markup import escape
 
     from prestress.materials import concrete_modulus
     from prestress.model import Concrete
@@ -512,7 +518,8 @@ def cmd_section(args: argparse.Namespace) -> int:
         return EXIT_OK
     console = make_console()
     console.print(properties_table(rep, system))
-    console.print(f"[dim]Source: {rep.entry.source or 'not given'} ({rep.entry.file})[/]")
+    source = escape(rep.entry.source or "not given")
+    console.print(f"[dim]Source: {source} ({escape(rep.entry.file)})[/]")
     return EXIT_OK
 
 

@@ -868,6 +868,7 @@ def load_job(path: str | Path) -> Job:
             ),
             live=_live(ld.table("live", required=False)),
             diaphragms=_diaphragms(ld, span),
+            deck_shrinkage=ld.number("deck_shrinkage", 0.0, low=0.0, high=2.0),
         )
         ld.done()
 

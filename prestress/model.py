@@ -231,6 +231,8 @@ class Loads:
             forms), N/mm.
         live: the live load.
         diaphragms: point loads on the girder alone: (position from the left bearing mm, N).
+        deck_shrinkage: factor on the restraint force of the deck's shrinkage applied to the
+            composite section in the final service stages (0: not applied).
     """
 
     superimposed_dead: float
@@ -238,6 +240,7 @@ class Loads:
     other_noncomposite: float
     live: LiveLoad
     diaphragms: tuple[tuple[float, float], ...] = ()
+    deck_shrinkage: float = 0.0
 
 
 @dataclass(frozen=True)

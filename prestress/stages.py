@@ -165,6 +165,11 @@ def stage_specs(girder: Girder) -> list[StageSpec]:
         )
     )
     dead_loads = LOAD_KEYS
+    shrink: tuple[str, ...] = ()
+    shrink_text = ""
+    if job.loads.deck_shrinkage > 0 and job.deck is not None:
+        shrink = ("deck_shrinkage",)
+        shrink_text = f", deck shrinkage × {job.loads.deck_shrinkage:g}"
     c_i, c_iii = job.combinations["service_i"], job.combinations["service_iii"]
     specs += [
         StageSpec(
@@ -174,9 +179,9 @@ def stage_specs(girder: Girder) -> list[StageSpec]:
             "bearings",
             1.0,
             0.0,
-            dead_loads,
+            (*dead_loads, *shrink),
             "fc",
-            "effective prestress and every permanent load",
+            f"effective prestress and every permanent load{shrink_text}",
         ),
         StageSpec(
             "service_i",
@@ -185,9 +190,10 @@ def stage_specs(girder: Girder) -> list[StageSpec]:
             "bearings",
             c_i.dead,
             c_i.live,
-            (*dead_loads, "live"),
+            (*dead_loads, *shrink, "live"),
             "fc",
-            f"effective prestress, permanent loads × {c_i.dead:g}, live load × {c_i.live:g}",
+            f"effective prestress, permanent loads × {c_i.dead:g}, live load × {c_i.live:g}"
+            f"{shrink_text}",
         ),
         StageSpec(
             "service_iii",
@@ -196,10 +202,10 @@ def stage_specs(girder: Girder) -> list[StageSpec]:
             "bearings",
             c_iii.dead,
             c_iii.live,
-            (*dead_loads, "live"),
+            (*dead_loads, *shrink, "live"),
             "fc",
             f"effective prestress, permanent loads × {c_iii.dead:g}, live load × "
-            f"{c_iii.live:g} (tension check)",
+            f"{c_iii.live:g}{shrink_text} (tension check)",
         ),
     ]
     return specs
@@ -354,29 +360,64 @@ def stage_stresses(
     girder: Girder, losses: LossBreakdown, spec: StageSpec, all_stations: list[Station]
 ) -> StageStresses:
     """Fiber stresses of one stage at its stations (vectorised over the stations)."""
+    job = girder.job
     sts = span_stations(girder, all_stations) if spec.support == "bearings" else list(all_stations)
     x = np.array([s.x for s in sts])
     sec = girder.section_transfer if spec.prestress == "transfer" else girder.section_service
     assert sec is not None
     comp = girder.section_composite
     P, cgs, note = prestress_at(girder, losses, spec.prestress, x)
+    on_span = (x >= job.bearing_offset - 1.0) & (x <= job.length - job.bearing_offset + 1.0)
     e = sec.yb - cgs
     ms = moments(girder, spec, x)
     M_nc = sum((m for k, m in ms.items() if k not in COMPOSITE_LOADS), np.zeros_like(x))
     M_c = sum((m for k, m in ms.items() if k in COMPOSITE_LOADS), np.zeros_like(x))
     stresses: dict[str, np.ndarray] = {}
     composite_stage = any(k in COMPOSITE_LOADS for k in spec.loads)
+    shrink = deck_shrinkage_stresses(girder) if "deck_shrinkage" in spec.loads else {}
     for fiber in FIBERS:
         if fiber == "deck_top":
             if comp is None or not composite_stage:
                 continue
-            stresses[fiber] = comp.n_fiber[fiber] * (-M_c * comp.c(fiber) / comp.I)
+            f_deck = comp.n_fiber[fiber] * (-M_c * comp.c(fiber) / comp.I)
+            stresses[fiber] = f_deck + shrink.get(fiber, 0.0) * on_span
             continue
         f = sec.n_fiber[fiber] * (-P / sec.area - (M_nc - P * e) * sec.c(fiber) / sec.I)
         carrier = comp if comp is not None else sec
         f = f + carrier.n_fiber[fiber] * (-M_c * carrier.c(fiber) / carrier.I)
-        stresses[fiber] = f
+        stresses[fiber] = f + shrink.get(fiber, 0.0) * on_span
     return StageStresses(spec, sts, x, P, cgs, e, ms, stresses, sec, comp, note)
+
+
+def deck_shrinkage_stresses(girder: Girder) -> dict[str, float]:
+    """Fiber stresses of the deck's shrinkage (MPa), times the job's factor.
+
+    The restraint force F (:func:`prestress.losses.refined.deck_shrinkage_force`) compresses
+    the composite section at the deck's centroid, ed above the composite centroid:
+    f = n (−F/Ac − F ed c / Ic) at a fiber c above the centroid; the deck itself carries the
+    restraining tension F/Ad on top of that (AASHTO LRFD 9th Ed. (2020) 5.9.3.4.3d, the
+    force of Eq. 5.9.3.4.3d-2; common practice for the stresses). Uniform along the span
+    (a simplification at the ends, where the force is transferred to the girder).
+    """
+    job = girder.job
+    comp = girder.section_composite
+    if job.deck is None or comp is None or job.loads.deck_shrinkage == 0.0:
+        return {}
+    from prestress.losses.refined import deck_shrinkage_force
+
+    F = deck_shrinkage_force(girder)[0] * job.loads.deck_shrinkage
+    deck = job.deck
+    y_deck = girder.gross.height + deck.haunch + deck.thickness / 2.0
+    e_d = y_deck - comp.yb
+    out = {}
+    for fiber in FIBERS:
+        if fiber not in comp.fibers:
+            continue
+        f = comp.n_fiber[fiber] * (-F / comp.area - F * e_d * comp.c(fiber) / comp.I)
+        if fiber == "deck_top":
+            f += F / (deck.effective_width * deck.thickness)
+        out[fiber] = f
+    return out
 
 
 # ------------------------------------------------------------------------------------------

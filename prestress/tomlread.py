@@ -66,6 +66,7 @@ KNOWN_KEYS: frozenset[str] = frozenset(
         "deck",
         "deck_placement",
         "deck_top",
+        "deck_shrinkage",
         "description",
         "design",
         "detailing",

@@ -122,6 +122,36 @@ def refined_input(girder: Girder, f_pt: float, loss_id: float = 0.0) -> rl.Refin
     )
 
 
+def deck_shrinkage_force(girder: Girder) -> tuple[float, str]:
+    """Restraint force of the deck's shrinkage from deck placement to final (N), and its text.
+
+    F = εddf Ad Ecd / [1 + 0.7 ψd(tf, td)], the force of AASHTO LRFD 9th Ed. (2020)
+    Eq. 5.9.3.4.3d-2, with the deck shrinkage and creep of 5.4.2.3 evaluated as in the
+    refined estimate (deck f'ci = 0.80 f'c, loading age of the deck 1 day, the deck's V/S).
+    It acts on the composite section at the deck's centroid, compressing it; the deck itself
+    carries the tension F/Ad that restrains it.
+    """
+    from prestress.codes.aashto_lrfd import creep_shrinkage as cs
+
+    job = girder.job
+    deck = job.deck
+    assert deck is not None
+    t = job.times
+    fc_d = deck.concrete.fc / KSI_MPA
+    fci_d = 0.80 * fc_d
+    vs = deck_volume_to_surface(girder) / INCH_MM
+    eps = float(cs.epsilon_sh(t.final - t.deck_placement, vs, t.relative_humidity, fci_d))
+    psi_d = float(cs.psi(t.final - t.deck_placement, 1.0, vs, t.relative_humidity, fci_d))
+    A_d = deck.effective_width * deck.thickness
+    F = eps * A_d * deck.concrete.Ec / (1.0 + 0.7 * psi_d)
+    text = (
+        f"deck shrinkage restraint force F = εddf Ad Ecd / (1 + 0.7 ψd) = {F / KIP_N:.0f} kip "
+        f"({F / 1000:.0f} kN) with εddf = {eps:.3e}, ψd = {psi_d:.3f} ({CLAUSE} Eq. "
+        "5.9.3.4.3d-2 with 5.4.2.3)"
+    )
+    return F, text
+
+
 @register("aashto-refined")
 def aashto_refined(girder: Girder) -> LossBreakdown:
     """Elastic shortening (C5.9.3.2.3a-1) and the refined estimate (5.9.3.4)."""

@@ -272,7 +272,7 @@ def loads_table(
         if le.shear_live is not None:
             cells += [fmt(float(v[i]), system, "force", 1) for v in le.shear_live]
         t.add_row(*(Text(c) for c in cells))
-    live = Text.from_markup(f"[dim]Live load: {live_load_text(result)}.[/]")
+    live = Text(f"Live load: {live_load_text(result)}.", style="dim")
     return Group(t, live, Text(""))
 
 
@@ -347,8 +347,8 @@ def stage_table(stage: StageResult, number: int, system: str) -> Group:
             f"  {FIBER_NAMES[f]}: " + (", ".join(parts) + rule if parts else "not checked")
         )
     limits = Text.from_markup(f"[dim]Limits ({su}):[/]\n" + "\n".join(lines))
-    what = Text.from_markup(f"[dim]Acting: {stage.description}.[/]")
-    notes = [Text.from_markup(f"[dim]Note: {n}[/]") for n in stage.notes]
+    what = Text(f"Acting: {stage.description}.", style="dim")
+    notes = [Text(f"Note: {n}", style="dim") for n in stage.notes]
     return Group(t, what, limits, *notes, Text(""))
 
 
@@ -466,6 +466,6 @@ def render(
         console.print(stage_table(stage, i, system))
     console.print(summary(result))
     for n in result.notes:
-        console.print(f"[dim]Note: {n}[/]")
+        console.print(Text(f"Note: {n}", style="dim"))
     console.print(verdict(result))
     console.print(f"[yellow]{CAUTION}[/]")

@@ -146,7 +146,7 @@ def next_leaner_table(result: DesignResult, system: str | None = None) -> Table 
 def render(result: DesignResult, console: Console, system: str | None = None) -> None:
     """Print the whole design search."""
     system = system or result.job.units
-    console.print(f"[bold]{result.job.title}[/] — strand pattern search")
+    console.print(f"[bold]{escape(result.job.title)}[/] — strand pattern search")
     console.print(space_table(result, system))
     console.print(candidates_table(result, system))
     nl = next_leaner_table(result, system)
