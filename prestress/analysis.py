@@ -620,6 +620,9 @@ def release_tension_steel_notes(girder: Girder, raw, stations: list[StationResul
     from prestress.stages import tensile_force
     from prestress.units import INCH_MM, KIP_N
 
+    limits = girder.job.limits
+    if "AASHTO" not in f"{limits.name} {limits.source}":
+        return []  # the rule is AASHTO's; other codes' limit sets say their own
     ext = np.asarray(girder.outline.exterior, dtype=float)
     holes = [np.asarray(h, dtype=float) for h in girder.outline.holes]
     h = girder.gross.height

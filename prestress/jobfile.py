@@ -188,6 +188,12 @@ def _tension(t: Table, key: str) -> TensionLimit | None:
     sub = t.table(key, required=False)
     if sub is None:
         return None
+    rule = sub.string("rule", "power", choices=("power", "en1992-fctm"))
+    if rule == "en1992-fctm":
+        coeff = sub.number("coefficient", 1.0, low=0.0, high=10.0)
+        cap = sub.quantity("cap", "stress", None, positive=True)
+        sub.done()
+        return TensionLimit(coefficient=coeff, root_unit="MPa", cap=cap, rule=rule)
     coeff = sub.number("coefficient", low=0.0, high=100.0)
     unit = sub.string("root_unit", choices=("ksi", "psi", "MPa"))
     cap = sub.quantity("cap", "stress", None, positive=True)

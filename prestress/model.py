@@ -265,18 +265,26 @@ class Times:
 class TensionLimit:
     """Tension limit: coefficient × √(strength in ``root_unit``), in ``root_unit``, capped.
 
-    Stored with the coefficient and unit as written, so reports can echo the formula.
+    Stored with the coefficient and unit as written, so reports can echo the formula. With
+    ``rule = "en1992-fctm"`` the limit is the coefficient times fctm of EN 1992-1-1:2004
+    Table 3.1 (both branches, below and above C50/60) for the strength taken as fck.
     """
 
     coefficient: float
     root_unit: str  # "ksi", "psi" or "MPa"
     cap: float | None  # MPa, or None
-    exponent: float = 0.5  # 0.5: square root (AASHTO, ACI); 2/3 for fctm of EN 1992-1-1
+    exponent: float = 0.5  # 0.5: square root (AASHTO, ACI)
+    rule: str = "power"  # "power" or "en1992-fctm"
 
     def value(self, strength_mpa: float) -> float:
         """The limit (MPa, positive) for a concrete strength (MPa)."""
         from prestress.units import KSI_MPA
 
+        if self.rule == "en1992-fctm":
+            from prestress.codes.en1992_1_1_materials import f_ctm
+
+            limit = self.coefficient * f_ctm(strength_mpa)
+            return min(limit, self.cap) if self.cap is not None else limit
         unit_mpa = {"ksi": KSI_MPA, "psi": KSI_MPA / 1000.0, "MPa": 1.0}[self.root_unit]
         limit = self.coefficient * (strength_mpa / unit_mpa) ** self.exponent * unit_mpa
         return min(limit, self.cap) if self.cap is not None else limit
@@ -284,6 +292,11 @@ class TensionLimit:
     def text(self, sym: str = "f") -> str:
         """The limit's formula in words, e.g. "0.24√f'ci (ksi)"."""
         cap = "" if self.cap is None else " ≤ cap"
+        if self.coefficient == 0.0:
+            return "no tension"
+        if self.rule == "en1992-fctm":
+            core = "fctm" if self.coefficient == 1.0 else f"{self.coefficient:g} fctm"
+            return f"{core}({sym}) (EN 1992-1-1 Table 3.1){cap}"
         if abs(self.exponent - 0.5) < 1e-12:
             core = f"{self.coefficient:g}√{sym}"
         else:

@@ -147,6 +147,7 @@ KNOWN_KEYS: frozenset[str] = frozenset(
         "relaxation",
         "right",
         "root_unit",
+        "rule",
         "rows",
         "section",
         "section_libraries",

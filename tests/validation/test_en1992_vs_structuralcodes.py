@@ -245,3 +245,27 @@ def test_invalid_arguments_raise_naming_the_argument(call, name: str) -> None:
 def test_rh_below_40_warns() -> None:
     with pytest.warns(UserWarning, match="RH"):
         ec2.beta_RH(30.0)
+
+
+# ------------------------------------------------------------------------------------------
+# fctm, EN 1992-1-1:2004 Table 3.1 (both branches), and the tension limit built on it
+
+
+@pytest.mark.parametrize("f_ck", [12.0, 20.0, 30.0, 40.0, 50.0, 55.0, 60.0, 70.0, 80.0, 90.0])
+def test_fctm_table_3_1_against_structuralcodes(f_ck: float) -> None:
+    from structuralcodes.codes import ec2_2004
+
+    from prestress.codes.en1992_1_1_materials import f_ctm
+
+    # structuralcodes.codes.ec2_2004.fctm implements Table 3.1; agreement to round-off
+    assert f_ctm(f_ck) == pytest.approx(ec2_2004.fctm(f_ck), rel=1e-9)
+
+
+def test_fctm_rule_in_a_limit_set() -> None:
+    from prestress.model import TensionLimit
+
+    lim = TensionLimit(coefficient=1.0, root_unit="MPa", cap=None, rule="en1992-fctm")
+    # C70/85: 2.12 ln(1 + 78/10) = 4.61 MPa (Table 3.1 prints 4.6), not 0.30 × 70^(2/3) = 5.10
+    assert lim.value(70.0) == pytest.approx(2.12 * math.log(1 + 7.8), rel=1e-12)
+    assert lim.value(70.0) == pytest.approx(4.6, abs=0.05)
+    assert lim.text("f'c") == "fctm(f'c) (EN 1992-1-1 Table 3.1)"
