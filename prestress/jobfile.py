@@ -424,6 +424,18 @@ def _tendons(top: Table, strand: Strand, length: float) -> list[Tendon]:
             ys.append(to_internal(y, "length", field=f"{t.field('points')}[{i}][1]", file=t.file))
         if any(b <= a for a, b in itertools.pairwise(xs)) or xs[0] < 0 or xs[-1] > length:
             raise t.error("points", "control points in increasing x within the girder length")
+        # anchors at the girder ends (within 1 mm, then taken exactly there): a tendon
+        # anchored inside the girder is not modelled
+        if xs[0] > 1.0 or xs[-1] < length - 1.0:
+            from prestress.units import FOOT_MM
+
+            raise t.error(
+                "points",
+                "the end anchors at the girder ends: first point at x = 0, last point at the "
+                "girder length (tendons anchored inside the girder are not supported)",
+                f"anchors at x = {xs[0] / FOOT_MM:.4g} ft and {xs[-1] / FOOT_MM:.4g} ft",
+            )
+        xs[0], xs[-1] = 0.0, length
         infl = t.number("inflection", None, low=0.01, high=0.99) if t.has("inflection") else None
         t.raw("inflection", None)
         fr = t.table("friction")
@@ -452,6 +464,7 @@ def _tendons(top: Table, strand: Strand, length: float) -> list[Tendon]:
             K=K,
             anchor_set=t.quantity("anchor_set", "length", 0.375 * INCH_MM, non_negative=True),
             jacking_stress=fpj,
+            jack_length=t.quantity("jack_length", "length", 0.0, non_negative=True),
         )
         try:
             tendon.profile()

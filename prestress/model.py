@@ -98,6 +98,8 @@ class Tendon:
         K: wobble coefficient, per mm of tendon.
         anchor_set: anchor set (wedge seat), mm.
         jacking_stress: fpj, MPa.
+        jack_length: free strand length from the anchorage to the jack's grip, mm (counted in
+            the jack elongation at fpj).
     """
 
     name: str
@@ -112,6 +114,7 @@ class Tendon:
     K: float
     anchor_set: float
     jacking_stress: float
+    jack_length: float = 0.0
 
     def profile(self, depth: float | None = None):
         """The tendon's parabolic profile (prestress.tendons.TendonProfile)."""

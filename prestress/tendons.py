@@ -61,6 +61,7 @@ __all__ = [
     "jack_elongation",
     "neutral_point",
     "post_tensioning_stresses",
+    "post_tensioning_stresses_along",
 ]
 
 JackingEnd = Literal["left", "right", "both"]
@@ -805,6 +806,64 @@ def post_tensioning_stresses(
     x = np.atleast_1d(np.asarray(x_mm, dtype=float))
     profile._locate(x)  # range check of the stations
     zones, xn = _zones(profile, f_pj_MPa, mu, K_per_mm, E_p_MPa, set_mm, jacking)
+    return _evaluate(profile, x, zones, xn, f_pj_MPa, mu, K_per_mm, set_mm, jacking)
+
+
+def post_tensioning_stresses_along(
+    profile: TendonProfile,
+    n: int = 241,
+    *,
+    f_pj_MPa: float,
+    mu: float,
+    K_per_mm: float,
+    E_p_MPa: float,
+    set_mm: float,
+    jacking: JackingEnd = "left",
+) -> PostTensionedStresses:
+    """Stresses after friction and set from anchor to anchor, with the set-zone ends as stations.
+
+    :func:`post_tensioning_stresses` on ``n`` evenly spaced stations from anchor to anchor, plus
+    the ends of the anchor-set zones and the neutral point. The stress after set has a kink
+    (its peak) at the end of each anchor-set zone; having that station in the grid makes the
+    peak exact and linear interpolation between stations close.
+
+    Args:
+        profile: Tendon profile.
+        n: Number of evenly spaced stations (>= 2).
+        f_pj_MPa: Jacking stress, MPa (> 0).
+        mu: Curvature friction coefficient, per rad (>= 0).
+        K_per_mm: Wobble coefficient per mm of tendon (>= 0).
+        E_p_MPa: Modulus of elasticity of the strand, MPa (> 0).
+        set_mm: Anchor set (wedge seat), mm (>= 0).
+        jacking: ``"left"``, ``"right"`` or ``"both"``.
+
+    Returns:
+        Stresses and losses at the stations (sorted, without duplicates).
+    """
+    if n < 2:
+        raise ValueError(f"n must be >= 2, got {n!r}")
+    f_pj_MPa, mu, K_per_mm = _check_friction_args(f_pj_MPa, mu, K_per_mm)
+    E_p_MPa = _positive("E_p_MPa", E_p_MPa, "MPa")
+    set_mm = _non_negative("set_mm", set_mm, "mm")
+    _check_end(jacking)
+    zones, xn = _zones(profile, f_pj_MPa, mu, K_per_mm, E_p_MPa, set_mm, jacking)
+    x0, x1 = profile.x_start_mm, profile.x_end_mm
+    extra = [z.x_set_mm for z, _ in zones] + ([] if xn is None else [xn])
+    x = np.unique(np.concatenate([np.linspace(x0, x1, n), np.clip(extra, x0, x1)]))
+    return _evaluate(profile, x, zones, xn, f_pj_MPa, mu, K_per_mm, set_mm, jacking)
+
+
+def _evaluate(
+    profile: TendonProfile,
+    x: NDArray[np.float64],
+    zones: tuple[tuple[AnchorSetZone, AnchorEnd], ...],
+    xn: float | None,
+    f_pj_MPa: float,
+    mu: float,
+    K_per_mm: float,
+    set_mm: float,
+    jacking: str,
+) -> PostTensionedStresses:
     f_fric = np.asarray(
         friction_stress(profile, x, f_pj_MPa=f_pj_MPa, mu=mu, K_per_mm=K_per_mm, jacking=jacking)
     )
@@ -846,12 +905,16 @@ def jack_elongation(
 ) -> dict[str, float]:
     """Expected elongation at each jack, Δ = ∫ fpx ds / Ep (+ fpj L_jack / Ep), mm.
 
-    The integral runs along the tendon over the part each jack stresses (the whole tendon for one
-    end; its side of the neutral point for both ends, stressed together). The optional
-    stressing-end correction adds the free strand length between the anchor wedges and the jack
-    grips, stressed at fpj without friction. Anchor set is not included (it occurs after the
-    elongation is read). Comparing with the field: a measured elongation within about ±7 % of
-    the computed one is common practice (see :func:`elongation_deviation`).
+    What it covers: the strand stretched from zero stress to the stress after friction of the
+    jacking stress fpj, BEFORE seating (the anchor set is not deducted: it occurs after the
+    elongation is read), by Hooke's law on the strand alone. The integral runs along the tendon
+    over the part each jack stresses (the whole tendon for one end; its side of the neutral
+    point for both ends, stressed together). The optional stressing-end term adds the free
+    strand length between the anchorage and the jack's grip, stressed at fpj without friction.
+    Not included: the elastic shortening of the concrete under the tendon's own force (the jack
+    reads it too, but it is small), and any elongation below an initial stress from which the
+    field reading starts. Comparing with the field: a measured elongation within about ±5 to
+    7 % of the computed one is common practice (see :func:`elongation_deviation`).
 
     Args:
         profile: Tendon profile.
@@ -860,7 +923,8 @@ def jack_elongation(
         K_per_mm: Wobble coefficient per mm of tendon (>= 0).
         E_p_MPa: Modulus of elasticity of the strand, MPa (> 0).
         jacking: ``"left"``, ``"right"`` or ``"both"``.
-        stressing_end_length_mm: Free strand length in the jack at each stressing end, mm (>= 0).
+        stressing_end_length_mm: Free strand length from the anchorage to the jack's grip at
+            each stressing end, mm (>= 0).
 
     Returns:
         Elongation per stressing end, mm, keyed ``"left"`` and/or ``"right"``.

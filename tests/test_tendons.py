@@ -15,6 +15,7 @@ from prestress.tendons import (
     jack_elongation,
     neutral_point,
     post_tensioning_stresses,
+    post_tensioning_stresses_along,
 )
 
 FT = 304.8
@@ -236,3 +237,24 @@ def test_continuity_property(
         assert math.isclose(s_l, s_r, abs_tol=1e-8)
     xs = np.linspace(x[0], x[-1], 501)
     assert np.all(p.height(xs) >= min(y) - 1e-9) and np.all(p.height(xs) <= max(y) + 1e-9)
+
+
+@pytest.mark.parametrize("jacking", ["left", "right", "both"])
+def test_stresses_along_hold_the_set_ends_and_agree(
+    three_span: TendonProfile, jacking: str
+) -> None:
+    """The grid of post_tensioning_stresses_along: evenly spaced stations plus the ends of the
+    anchor-set zones (and the neutral point), the same stresses as post_tensioning_stresses."""
+    kw = {**FRICTION, "E_p_MPa": E_P, "set_mm": SET, "jacking": jacking}
+    r = post_tensioning_stresses_along(three_span, 101, **kw)
+    assert np.all(np.diff(r.x_mm) > 0)
+    assert r.x_mm[0] == X3[0] and r.x_mm[-1] == X3[-1]
+    for z in r.anchor_set_zones:
+        assert z.x_set_mm in r.x_mm
+    if jacking == "both":
+        assert r.neutral_point_mm in r.x_mm
+    ref = post_tensioning_stresses(three_span, r.x_mm, **kw)
+    assert np.array_equal(ref.f_p_after_set_MPa, r.f_p_after_set_MPa)
+    assert len(r.x_mm) >= 101
+    with pytest.raises(ValueError, match="n must"):
+        post_tensioning_stresses_along(three_span, 1, **kw)

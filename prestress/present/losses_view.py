@@ -172,32 +172,64 @@ def to_dict(b: LossBreakdown, A_ps: float, system: str) -> dict[str, Any]:
 
 
 def tendon_tables(girder, system: str) -> list[Table]:
-    """Post-tensioned tendons: stress after friction and anchor set along each, elongations."""
+    """Post-tensioned tendons: stresses after friction and anchor set, elongation, stress limits.
+
+    One table per tendon, then the limits of AASHTO LRFD Table 5.9.2.2-1
+    (:func:`tendon_limit_table`).
+    """
     import numpy as np
 
-    from prestress.losses.post_tensioned import tendon_states
+    from prestress.losses.post_tensioned import tendon_limit_checks, tendon_states
+    from prestress.units import out_unit
 
-    job = girder.job
     su, pu, du = label(system, "stress"), label(system, "position"), label(system, "dimension")
+    per = out_unit(system, "position")
+    states = tendon_states(girder)
     out = []
-    for s in tendon_states(girder):
+    for s in states:
         t = s.tendon
         xs = np.linspace(s.x[0], s.x[-1], 11)
+        ends = "both ends" if t.jacking == "both" else f"the {t.jacking} end"
+        zones = []
+        for z in s.set_zones:
+            side = "left" if z.x_anchor_mm <= s.x[0] else "right"
+            reach = (
+                (
+                    " (reaches the neutral point)"
+                    if s.neutral_point is not None
+                    else " (reaches the far end)"
+                )
+                if z.reaches_limit
+                else ""
+            )
+            affected = fmt(abs(z.x_set_mm - z.x_anchor_mm), system, "position", 2)
+            zones.append(
+                f"from the {side} anchorage over {affected} {pu}{reach}, loss "
+                f"{fmt(z.loss_at_anchor_MPa, system, 'stress', 2)} {su} there"
+            )
+        k = int(np.argmax(s.after_set))
+        jack = fmt(t.jack_length, system, "dimension", 2)
         tab = Table(
-            title=f"Tendon {t.name}: {t.strands} strands, jacked at the {t.jacking} "
-            f"end{'s' if t.jacking == 'both' else ''} to "
+            title=f"Tendon {t.name}: {t.strands} strands, jacked at {ends} to "
             f"{fmt(t.jacking_stress, system, 'stress', 1)} {su}",
             title_justify="left",
             title_style="bold",
             box=box.SIMPLE_HEAD,
             caption=f"x in {pu} from the left end; heights in {du}; stresses in {su}. "
-            f"Friction: μ = {t.mu:g}, K per length as given (AASHTO LRFD Eq. "
-            f"5.9.3.2.2b-1); anchor set {fmt(t.anchor_set, system, 'dimension', 3)} {du} "
-            "by the area method. Expected elongation: "
+            f"Friction (AASHTO LRFD 9th Ed. Eq. 5.9.3.2.2b-1): μ = {t.mu:g} per radian, "
+            f"K = {t.K * per.factor:.3g} per {per.label} of tendon. "
+            f"Anchor set {fmt(t.anchor_set, system, 'dimension', 3)} {du} by the area method: "
+            + ("; ".join(zones) if zones and t.anchor_set > 0 else "none")
+            + f". Peak stress after set {fmt(float(s.after_set[k]), system, 'stress', 1)} {su} "
+            f"at x = {fmt(float(s.x[k]), system, 'position', 2)} {pu}. "
+            "Expected jack elongation "
             + ", ".join(
                 f"{end} {fmt(v, system, 'dimension', 2)} {du}" for end, v in s.elongation.items()
             )
-            + " (measured within about ±7 % is common practice).",
+            + f": at fpj before seating (anchor set not deducted), from zero stress, "
+            f"∫ fpx ds / Ep along the tendon plus the jack length {jack} {du} at fpj; the "
+            "concrete's own elastic shortening is excluded; field measurements usually agree "
+            "within about ±5–7 % (common practice).",
             caption_justify="left",
         )
         for col in (
@@ -224,5 +256,42 @@ def tendon_tables(girder, system: str) -> list[Table]:
                 f"{100 * f2 / t.jacking_stress:.1f}",
             )
         out.append(tab)
-    del job
+    out.append(tendon_limit_table(tendon_limit_checks(girder, states), system))
     return out
+
+
+def tendon_limit_table(checks: list[Any], system: str) -> Table:
+    """The tendon stresses against AASHTO LRFD 9th Ed. (2020) Table 5.9.2.2-1, one row each."""
+    from prestress.losses.post_tensioned import LIMITS_SOURCE
+
+    su, pu = label(system, "stress"), label(system, "position")
+    tab = Table(
+        title=f"Tendon stress limits — {LIMITS_SOURCE}",
+        title_justify="left",
+        title_style="bold",
+        box=box.SIMPLE_HEAD,
+        caption=f"Stresses in {su}; x in {pu} from the left end. After set: immediately after "
+        "anchor set; effective: after anchor set, elastic shortening and the final "
+        "time-dependent losses given in the job.",
+        caption_justify="left",
+    )
+    for col in ("Tendon", "Condition", "Where", "x", "Stress", "Limit", "Ratio", ""):
+        tab.add_column(col, justify="left" if col in ("Tendon", "Condition", "Where") else "right")
+    short = {
+        "prior_to_seating": "jacking, prior to seating",
+        "anchorage_after_set": "at an anchorage, after set",
+        "elsewhere_after_set": "away from anchorages, after set",
+        "service": "service, after all losses",
+    }
+    for c in checks:
+        tab.add_row(
+            c.tendon,
+            short.get(c.key, c.condition),
+            c.where,
+            fmt(c.x, system, "position", 2),
+            fmt(c.stress, system, "stress", 1),
+            f"{c.limit_text} = {fmt(c.limit, system, 'stress', 1)}",
+            f"{c.ratio:.2f}",
+            "ok" if c.ok else "[bold red]EXCEEDED[/]",
+        )
+    return tab

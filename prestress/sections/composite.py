@@ -10,10 +10,11 @@ bottom; properties expressed in units of the girder concrete (transformed areas)
 
 from __future__ import annotations
 
+import math
 from collections.abc import Iterable
 from dataclasses import dataclass
 
-from prestress.model import Deck
+from prestress.model import Deck, Tendon
 from prestress.sections.properties import GrossProperties
 
 
@@ -194,4 +195,85 @@ def transformed_composite(
         layers,
         n_p - 1.0,
         "composite, transformed",
+    )
+
+
+# ------------------------------------------------------------------------------------------
+# Post-tensioned girders before grouting: the section net of the open ducts
+
+
+@dataclass(frozen=True)
+class DuctHole:
+    """An open (ungrouted) duct: outside diameter and centre height above the girder bottom (mm)."""
+
+    diameter: float
+    y: float
+
+
+def duct_components(ducts: Iterable[DuctHole]) -> list[Component]:
+    """Open ducts as circular holes: area π d²/4, own inertia π d⁴/64, weighting −1."""
+    return [
+        Component("duct", math.pi * d.diameter**2 / 4.0, d.y, math.pi * d.diameter**4 / 64.0, -1.0)
+        for d in ducts
+        if d.diameter > 0.0
+    ]
+
+
+def net_of_ducts(
+    g: GrossProperties, ducts: Iterable[DuctHole], name: str = "girder, net (open ducts)"
+) -> AssembledSection:
+    """The girder with circular holes at the open ducts, by the parallel-axis theorem (mm).
+
+    Exact for holes lying wholly inside the concrete and not overlapping each other in the real
+    girder (the job reader checks the duct cover); a test checks it against the exact integrals
+    of the polygon with circular holes. Area, centroid height and inertia about the horizontal
+    centroidal axis do not depend on the holes' horizontal positions, so ducts side by side at
+    one height are counted right although they are all described on the girder's axis.
+    """
+    area, yb, inertia = assemble([girder_component(g), *duct_components(ducts)])
+    return AssembledSection(
+        name=name,
+        area=area,
+        yb=yb,
+        I=inertia,
+        fibers={"girder_bottom": 0.0, "girder_top": g.height},
+        n_fiber={"girder_bottom": 1.0, "girder_top": 1.0},
+    )
+
+
+def section_at_stressing(
+    g: GrossProperties, tendons: Iterable[Tendon], x: float
+) -> tuple[AssembledSection, str]:
+    """The section carrying the prestress of post-tensioned tendons at stressing, and a notice.
+
+    Before the ducts are grouted the tendons are not bonded and the ducts are holes: AASHTO
+    LRFD 5.9.1.4 (clause number as recalled for the 8th Ed.; from memory): "before bonding of
+    tendons, the loss of area due to open ducts shall be considered". The ducts' heights vary
+    along the girder; one section is used for the stage, with every duct at its height at
+    station ``x`` (midlength, as the transformed sections of pretensioned girders take the
+    strands at their midlength heights), on the girder's vertical axis.
+
+    Args:
+        g: gross girder properties.
+        tendons: the job's tendons (outside duct diameter, profile).
+        x: station whose duct heights are used, mm from the left end.
+
+    Returns:
+        (the net section, a notice saying what was done).
+    """
+    tendons = list(tendons)
+    holes = [DuctHole(t.duct_diameter, float(t.profile().height(x))) for t in tendons]
+    if not any(h.diameter > 0.0 for h in holes):
+        return noncomposite(g), (
+            "post-tensioning stage on the gross section: no tendon gives a duct_diameter, so the "
+            "loss of area due to the open ducts (AASHTO LRFD 5.9.1.4, from memory) is not counted"
+        )
+    sec = net_of_ducts(g, holes)
+    loss = 100.0 * (1.0 - sec.area / g.area)
+    return sec, (
+        "post-tensioning stage and its elastic shortening on the girder net of the open ducts "
+        f"(area {loss:.1f} % less than gross; AASHTO LRFD 5.9.1.4, from memory: before bonding, "
+        "the loss of area due to open ducts is considered), with the ducts at their midlength "
+        "heights on the girder axis (an approximation near the ends, where they rise); the "
+        "later stages, after grouting, use the gross section"
     )

@@ -11,7 +11,11 @@ Pure functions in the units printed in the specification (ksi, in, ft, rad):
   :func:`delta_f_pA_linear_long_set`). These are not equations of the specification; they are the
   textbook equal-area relations (e.g. Collins, M.P. and Mitchell, D., *Prestressed Concrete
   Structures*, Prentice Hall, 1991, treatment of anchorage set; also the PTI *Post-Tensioning
-  Manual*), written here `from memory`; no page or clause is cited for them.
+  Manual*), written here `from memory`; no page or clause is cited for them;
+- the stress limits of the post-tensioning steel, Table 5.9.2.2-1
+  (:data:`TENDON_STRESS_LIMITS`, :func:`f_p_limits_post_tensioned`, values from memory);
+- the size of ducts for multi-strand tendons, Art. 5.4.6.2 (:func:`duct_area_ratio_ok`, from
+  memory).
 
 Losses are returned as positive numbers (a loss reduces the strand stress).
 """
@@ -24,13 +28,18 @@ import numpy as np
 from numpy.typing import ArrayLike, NDArray
 
 __all__ = [
+    "DUCT_AREA_RATIO_MIN",
+    "TENDON_STRESS_LIMITS",
     "TYPICAL_FRICTION_COEFFICIENTS",
     "FrictionCoefficients",
+    "TendonStressLimit",
     "delta_f_pA_linear",
     "delta_f_pA_linear_long_set",
     "delta_f_pES_post_tensioned",
     "delta_f_pF",
     "delta_set_from_area",
+    "duct_area_ratio_ok",
+    "f_p_limits_post_tensioned",
     "x_set_linear",
 ]
 
@@ -253,3 +262,140 @@ def delta_f_pA_linear_long_set(
         )
     c = ep * d / length - slope * length
     return slope * length + ep * d / length, c
+
+
+# --------------------------------------------------------------------------- stress limits
+@dataclass(frozen=True)
+class TendonStressLimit:
+    """One row of AASHTO LRFD 9th Ed. (2020) Table 5.9.2.2-1 for post-tensioning.
+
+    Attributes:
+        key: ``"prior_to_seating"``, ``"anchorage_after_set"``, ``"elsewhere_after_set"`` or
+            ``"service"``.
+        condition: the condition in the words of the table.
+        fraction: the limit as a fraction of ``of``.
+        of: ``"fpy"`` or ``"fpu"``.
+    """
+
+    key: str
+    condition: str
+    fraction: float
+    of: str
+
+    @property
+    def text(self) -> str:
+        """The limit in words, e.g. ``"0.70 fpu"``."""
+        return f"{self.fraction:.2f} {self.of}"
+
+
+# AASHTO LRFD 9th Ed. (2020) Table 5.9.2.2-1, "Stress Limits for Prestressing Steel",
+# post-tensioning rows. Every value is `from memory` (the printed table was not at hand): check
+# it against the specification before relying on it.
+TENDON_STRESS_LIMITS: MappingProxyType[str, tuple[TendonStressLimit, ...]] = MappingProxyType(
+    {
+        "low": (
+            TendonStressLimit(
+                "prior_to_seating", "prior to seating, short-term fpbt may be allowed", 0.90, "fpy"
+            ),
+            TendonStressLimit(
+                "anchorage_after_set",
+                "at anchorages and couplers immediately after anchor set",
+                0.70,
+                "fpu",
+            ),
+            TendonStressLimit(
+                "elsewhere_after_set",
+                "elsewhere along the length of the member away from anchorages and couplers "
+                "immediately after anchor set",
+                0.74,
+                "fpu",
+            ),
+            TendonStressLimit(
+                "service", "at the service limit state after all losses, fpe", 0.80, "fpy"
+            ),
+        ),
+        "stress-relieved": (
+            TendonStressLimit(
+                "prior_to_seating", "prior to seating, short-term fpbt may be allowed", 0.90, "fpy"
+            ),
+            TendonStressLimit(
+                "anchorage_after_set",
+                "at anchorages and couplers immediately after anchor set",
+                0.70,
+                "fpu",
+            ),
+            TendonStressLimit(
+                "elsewhere_after_set",
+                "elsewhere along the length of the member away from anchorages and couplers "
+                "immediately after anchor set",
+                0.70,
+                "fpu",
+            ),
+            TendonStressLimit(
+                "service", "at the service limit state after all losses, fpe", 0.80, "fpy"
+            ),
+        ),
+    }
+)
+
+
+def f_p_limits_post_tensioned(
+    f_pu: float, f_py: float, relaxation: str = "low"
+) -> dict[str, tuple[TendonStressLimit, float]]:
+    """AASHTO LRFD 9th Ed. (2020) Table 5.9.2.2-1: stress limits for post-tensioning steel.
+
+    Values from memory (see :data:`TENDON_STRESS_LIMITS`). Low-relaxation strand: 0.90 fpy prior
+    to seating; 0.70 fpu at anchorages and couplers immediately after anchor set; 0.74 fpu
+    elsewhere along the length, away from anchorages and couplers, immediately after anchor set;
+    0.80 fpy at the service limit state after all losses. Stress-relieved strand: the same but
+    0.70 fpu elsewhere after anchor set.
+
+    Args:
+        f_pu: Specified tensile strength of the prestressing steel, ksi (> 0).
+        f_py: Yield strength of the prestressing steel, ksi (> 0).
+        relaxation: ``"low"`` (low-relaxation strand) or ``"stress-relieved"``.
+
+    Returns:
+        For each row key, the row and its limit stress in ksi.
+
+    Raises:
+        ValueError: If a strength is not positive or the relaxation type is unknown.
+    """
+    fpu = float(_positive("f_pu", f_pu, "ksi"))
+    fpy = float(_positive("f_py", f_py, "ksi"))
+    if relaxation not in TENDON_STRESS_LIMITS:
+        raise ValueError(
+            f"relaxation must be one of {tuple(TENDON_STRESS_LIMITS)}, got {relaxation!r}"
+        )
+    base = {"fpu": fpu, "fpy": fpy}
+    return {r.key: (r, r.fraction * base[r.of]) for r in TENDON_STRESS_LIMITS[relaxation]}
+
+
+#: AASHTO LRFD 9th Ed. (2020) Art. 5.4.6.2 (from memory): for tendons of several strands the
+#: inside area of the duct is at least 2.0 times the net area of the prestressing steel (2.5
+#: where the tendons are placed by the pull-through method).
+DUCT_AREA_RATIO_MIN = 2.0
+
+
+def duct_area_ratio_ok(
+    duct_inside_diameter: float, A_ps: float, ratio: float = DUCT_AREA_RATIO_MIN
+) -> tuple[float, bool]:
+    """AASHTO LRFD 9th Ed. (2020) Art. 5.4.6.2: duct area against the strand area (from memory).
+
+    Args:
+        duct_inside_diameter: Inside diameter of the duct, in (> 0). Given the outside diameter
+            instead, the ratio is an upper bound (the inside area is smaller).
+        A_ps: Net area of the prestressing steel in the duct, in^2 (> 0).
+        ratio: Least ratio of the duct area to the steel area (2.0; 2.5 for pull-through).
+
+    Returns:
+        (duct area / A_ps, True if it is at least ``ratio``).
+
+    Raises:
+        ValueError: If an argument is not positive.
+    """
+    d = float(_positive("duct_inside_diameter", duct_inside_diameter, "in"))
+    a = float(_positive("A_ps", A_ps, "in^2"))
+    r = float(_positive("ratio", ratio, "(ratio)"))
+    got = math.pi * d * d / 4.0 / a
+    return got, got >= r * (1.0 - 1e-12)
