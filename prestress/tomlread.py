@@ -106,6 +106,7 @@ KNOWN_KEYS: frozenset[str] = frozenset(
         "hold_downs",
         "impact",
         "inflection",
+        "jack_length",
         "jacking",
         "jacking_stress",
         "job",

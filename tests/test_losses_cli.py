@@ -123,3 +123,24 @@ def test_transformed_basis(tmp_path: Path) -> None:
     )
     t0 = st.fibers["girder_bottom"].stress
     assert t0 == pytest.approx(g0, rel=0.03)
+
+
+def test_compare_marks_what_is_not_in_the_total(capsys, monkeypatch) -> None:
+    """The elastic gain from later loads is reported but not in fpj − fpe (the stage engine
+    applies the loads itself); deck shrinkage of the time-step methods has its own row."""
+    monkeypatch.setenv("COLUMNS", "250")
+    harped = ROOT / "examples" / "harl-brook-span1-g2-harped.toml"
+    assert main(["losses", str(harped), "--compare"]) == 0
+    out = capsys.readouterr().out
+    assert "Elastic gain from later loads (reported, not in total)" in out
+    assert "Totals are fpj − fpe" in " ".join(out.split())  # the caption wraps
+    row = next(line for line in out.splitlines() if "Deck shrinkage (gain)" in line)
+    assert row.count("—") == 1  # only the approximate method does not model it
+    assert main(["losses", str(harped), "--compare", "--json"]) == 0
+    data = json.loads(capsys.readouterr().out)
+    for m in data["methods"]:
+        if m["method"].startswith("time-step"):
+            keys = {c["key"] for c in m["components"]}
+            assert {"deck_shrinkage_gain", "deck_creep", "shrinkage_after_deck"} <= keys
+            gain = m["by_mechanism"]["deck_shrinkage_gain"]["value"]
+            assert gain < 0.0

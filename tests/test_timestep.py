@@ -22,7 +22,8 @@ All girder data here are invented inputs.
 
 from __future__ import annotations
 
-from dataclasses import dataclass
+import math
+from dataclasses import dataclass, replace
 
 import numpy as np
 import pytest
@@ -583,6 +584,113 @@ def test_relaxation_is_reduced_by_creep_and_shrinkage():
     f_pt = r.strand_stress[1, 0, 0]
     intrinsic = rx.f_pR_log_time(19_999.0 * 24.0, f_pt, 243 * KSI)
     assert 0.0 < r.losses["relaxation"][-1, 0, 0] < intrinsic
+
+
+def test_split_of_creep_and_shrinkage_by_part_is_exact():
+    # Linearity of the section analysis (common practice): each part's shrinkage is its own
+    # right-hand side with the same stiffness, so the parts' shares add up to the combined share
+    # (1e-9 relative), and the girder's share does not depend on whether the deck shrinks.
+    parts, layers, events = _girder_case()
+    r = run_timestep(parts, layers, events, [20_000.0], 80, transfer_age=1.0)
+    for mech in ("creep", "shrinkage"):
+        by_part = r.losses_by_part[mech]
+        scale = np.abs(r.losses[mech]).max()
+        np.testing.assert_allclose(
+            by_part["girder"] + by_part["deck"], r.losses[mech], rtol=0, atol=1e-9 * scale
+        )
+    # the deck's shrinkage shortens the composite section's top and lifts the strands' stress:
+    # a gain (common practice; the sign of AASHTO LRFD 5.9.3.4.3d)
+    assert r.losses_by_part["shrinkage"]["deck"][-1, 0, 0] < 0.0
+    # a deck that does not shrink: same girder shrinkage share, no deck share, and the total
+    # loss changes by the deck's share (and the creep it causes)
+    dry = [parts[0], replace(parts[1], model=CreepOnly(parts[1].model))]
+    r0 = run_timestep(dry, layers, events, [20_000.0], 80, transfer_age=1.0)
+    np.testing.assert_allclose(
+        r0.losses_by_part["shrinkage"]["girder"],
+        r.losses_by_part["shrinkage"]["girder"],
+        rtol=1e-12,
+        atol=1e-12,
+    )
+    np.testing.assert_allclose(r0.losses_by_part["shrinkage"]["deck"], 0.0, atol=1e-15)
+    np.testing.assert_allclose(r0.losses["shrinkage"], r0.losses_by_part["shrinkage"]["girder"])
+
+
+# --------------------------------------------------------------------------- job consistency
+def test_aashto_model_with_the_job_moduli():
+    # the modulus passes through E_ci at the age of f'ci and E_28 at 28 days; with the moduli
+    # of Eq. 5.4.2.4-1 (any wc, K1) the exponent is the code's 0.33 (AASHTO LRFD 9th Ed.
+    # (2020) Eq. 5.4.2.4-1, by hand: 120,000 × 0.145² × f^0.33 ksi)
+    Eci, Ec = (120_000 * 0.145**2 * f**0.33 * KSI for f in (5.8, 8.0))
+    m = _aashto_girder(unit_weight=None, E_28=Ec, E_ci=Eci)
+    assert m.E(1.0) == pytest.approx(Eci, rel=1e-12)
+    assert m.E(28.0) == pytest.approx(Ec, rel=1e-12)
+    assert m._n == pytest.approx(0.33, rel=1e-12)
+    m = _aashto_girder(unit_weight=None, E_28=Ec, E_ci=0.85 * Ec)  # given moduli
+    assert m.E(1.0) == pytest.approx(0.85 * Ec, rel=1e-12)
+    with pytest.raises(ValueError, match="E_ci"):
+        _aashto_girder(unit_weight=None, E_28=Ec, E_ci=1.1 * Ec)
+
+
+def test_aashto_model_transfer_at_28_days_or_later():
+    with pytest.raises(ValueError, match="age_f_ci"):
+        _aashto_girder(age_at_end_of_curing=30.0)
+    m = _aashto_girder(age_at_end_of_curing=30.0, f_ci=8 * KSI)  # f'ci = f'c: flat law
+    assert m.strength(30.0) == pytest.approx(8 * KSI, rel=1e-12)
+    assert m.E(30.0) == pytest.approx(aashto_mat.E_c(8.0, 0.150) * KSI, rel=1e-12)
+
+
+def test_aci209_a_fitted_to_the_strength_at_transfer():
+    # ACI 209R-92 Eq. 2-1 with β of Table 2.2.1 (steam, Type I: 0.95, from memory) and a fitted
+    # so that (f'c)t = f'ci at t = 1 day: a = 1 × (55/40 − 0.95) = 0.425 d, by hand
+    m = M.Aci209Model(
+        f_c=55.0,
+        f_ci=40.0,
+        age_f_ci=1.0,
+        relative_humidity=70.0,
+        volume_to_surface=70.0,
+        curing="steam",
+        age_at_end_of_curing=1.0,
+        E_28=36_000.0,
+        E_ci=31_000.0,
+    )
+    assert m._a == pytest.approx(0.425, rel=1e-12) and m._beta == 0.95
+    assert m.strength(1.0) == pytest.approx(40.0, rel=1e-12)
+    assert m.E(1.0) == pytest.approx(31_000.0, rel=1e-12)
+    assert m.E(0.425 / 0.05) == pytest.approx(36_000.0, rel=1e-12)  # at f'c: t = a/(1 − β)
+    with pytest.raises(ValueError, match="a and f_ci"):
+        M.Aci209Model(
+            f_c=55.0, f_ci=40.0, a=1.0, relative_humidity=70.0, volume_to_surface=70.0,
+            unit_weight=WC,
+        )  # fmt: skip
+
+
+@pytest.mark.parametrize("cls, s", [(M.Mc2010Model, 0.20), (M.En1992Model, 0.25)])
+def test_fib_equivalent_age_fitted_to_the_strength_at_transfer(cls, s):
+    # fib MC2010 (2013) Eq. 5.1-51 / EN 1992-1-1:2004 Eq. 3.2 solved for t, by hand:
+    # βcc = (40 + 8)/(55 + 8) = 0.7619; t = 28 / [1 − ln(0.7619)/s]²
+    # (MC2010: fcm = 63 MPa > 60, s = 0.20, Table 5.1-9; EN class N, s = 0.25, 3.1.2(6))
+    m = cls(
+        f_ck=55.0,
+        f_ci=40.0,
+        relative_humidity=70.0,
+        notional_size=150.0,
+        age_at_end_of_curing=1.0,
+        E_28=38_000.0,
+        E_ci=33_000.0,
+    )
+    t_T = 28.0 / (1.0 - math.log(48.0 / 63.0) / s) ** 2
+    assert m.maturity_at_end_of_curing == pytest.approx(t_T, rel=1e-12)
+    assert m.strength(1.0) == pytest.approx(48.0, rel=1e-12)
+    assert m.E(1.0) == pytest.approx(33_000.0, rel=1e-12)
+    # after curing the concrete ages at 20 °C: equivalent age t_T + (t − 1)
+    assert m.E(1.0 + 28.0 - t_T) == pytest.approx(38_000.0, rel=1e-12)
+    with pytest.raises(ValueError, match="f_ci"):
+        cls(f_ck=55.0, f_ci=60.0, relative_humidity=70.0, notional_size=150.0)
+    with pytest.raises(ValueError, match="equivalent_age_at_end_of_curing"):
+        cls(
+            f_ck=55.0, f_ci=40.0, equivalent_age_at_end_of_curing=5.0, relative_humidity=70.0,
+            notional_size=150.0,
+        )  # fmt: skip
 
 
 # --------------------------------------------------------------------------- staging

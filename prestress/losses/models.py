@@ -26,10 +26,22 @@ checks of the engine.
 Soft limits of the codes (strength, humidity, earliest age at loading) are reported once, when the
 adapter is built, not on every array evaluation; each adapter states its earliest age at loading
 in ``min_loading_age`` so the engine can warn when a load comes earlier.
+
+Consistency with a job's own concrete figures (what :mod:`prestress.losses.timestep_method` passes):
+every adapter takes the 28-day modulus ``E_28`` and the modulus at transfer ``E_ci``, and its
+strength-time law is tied to the strength at transfer ``f_ci`` (AASHTO and ACI 209R-92: a fitted
+constant of the Eq. 2-1 form; MC2010 and EN 1992-1-1: a temperature-adjusted, equivalent age at
+the end of curing). The modulus keeps the code's own development law in shape, E(t) = E_28 ·
+r(t)^n with r the code's strength ratio and n the code's exponent (0.33 AASHTO, 0.5 ACI and
+MC2010, 0.3 EN), except that n is recalibrated so that E passes exactly through ``E_ci`` at
+transfer when it is given (:func:`_calibrated_exponent`). This calibration is a choice of this
+module: the job's moduli are the engineer's input and every other part of the analysis (the
+transformed sections, the refined estimate) uses them.
 """
 
 from __future__ import annotations
 
+import math
 import warnings
 from dataclasses import dataclass, field
 from typing import Any, ClassVar, Protocol, runtime_checkable
@@ -105,7 +117,36 @@ def _fib_checks(m: Any) -> float:
     _positive("age_at_end_of_curing", m.age_at_end_of_curing, "days")
     if m.equivalent_age_at_end_of_curing is not None:
         _positive("equivalent_age_at_end_of_curing", m.equivalent_age_at_end_of_curing, "d")
+        if m.f_ci is not None:
+            raise ValueError(
+                "equivalent_age_at_end_of_curing and f_ci must not both be given (the "
+                "equivalent age is fitted to f_ci)"
+            )
+    if m.f_ci is not None:
+        fci = _positive("f_ci", m.f_ci, "MPa")
+        if fci > fck:
+            raise ValueError(f"f_ci must not exceed f_ck ({fck:g} MPa), got {fci:g} MPa")
     return fcm
+
+
+def _equivalent_age(f_ci: float, f_ck: float, f_cm: float, s: float) -> float:
+    """Temperature-adjusted age at which βcc(t) fcm = f_ci + (fcm − fck), days (≤ 28).
+
+    fib MC2010 (2013) Eq. 5.1-51 and EN 1992-1-1:2004 Eq. 3.2, βcc(t) = exp{s [1 − (28/t)^½]},
+    solved for t: t = 28 / [1 − ln(βcc)/s]², with the mean strength at that age taken as the
+    characteristic strength at transfer plus fcm − fck (8 MPa, MC2010 Eq. 5.1-1, EN Table 3.1).
+    The age so found is the temperature-adjusted (maturity) age of MC2010 5.1.10 (Eq. 5.1-85)
+    and EN 1992-1-1 B.1(2) (Eq. B.10) that steam curing reaches at transfer (from memory: EN
+    1992-1-1 10.3.1.1(3) estimates the strength of heat-treated precast concrete with that age).
+
+    Args:
+        f_ci: characteristic strength at transfer, MPa (≤ f_ck).
+        f_ck: characteristic 28-day strength, MPa.
+        f_cm: mean 28-day strength, MPa.
+        s: coefficient s of the cement class.
+    """
+    beta_cc = (f_ci + f_cm - f_ck) / f_cm
+    return 28.0 / (1.0 - math.log(beta_cc) / s) ** 2
 
 
 def _humidity(value: Any) -> float:
@@ -130,6 +171,41 @@ def _age(age: ArrayLike) -> FloatArray:
     if np.any(~np.isfinite(t)) or np.any(t < 0.0):
         raise ValueError("age must be at least 0 days")
     return t
+
+
+def _calibrated_exponent(default: float, ratio: float, E_ci: float | None, E_ref: float) -> float:
+    """Exponent n of E(t) = E_ref · r(t)^n that gives E_ci where the strength ratio r is ``ratio``.
+
+    A choice of this module (see the module docstring): the code's own development law
+    E = E_ref · r^default, with the exponent recalibrated so that the modulus at transfer is the
+    job's. ``E_ci`` None keeps the code's exponent.
+
+    Args:
+        default: the code's exponent.
+        ratio: the model's strength ratio r (to the reference age) at the age of ``E_ci``.
+        E_ci: the modulus wanted at that age, MPa, or ``None``.
+        E_ref: the modulus at r = 1, MPa.
+
+    Raises:
+        ValueError: naming ``E_ci`` when no non-negative exponent reproduces it.
+    """
+    if E_ci is None:
+        return default
+    Eci = _positive("E_ci", E_ci, "MPa")
+    if abs(math.log(ratio)) < 1e-9:
+        if abs(Eci / E_ref - 1.0) > 1e-9:
+            raise ValueError(
+                f"E_ci must equal the 28-day modulus ({E_ref:g} MPa) when the strength at transfer "
+                f"is the 28-day strength (no gain left to grow the modulus), got {Eci:g} MPa"
+            )
+        return default
+    n = math.log(Eci / E_ref) / math.log(ratio)
+    if n < 0.0:
+        raise ValueError(
+            f"E_ci = {Eci:g} MPa would make the modulus fall while the strength grows "
+            f"(28-day modulus {E_ref:g} MPa)"
+        )
+    return n
 
 
 class _Base:
@@ -205,7 +281,12 @@ class AashtoModel(_Base):
       through f'ci at ``age_f_ci`` and f'c at 28 days (b = 1 − a/28), and held at f'c from 28 days
       on. This strength-time law is an assumption of this module (the LRFD text used here gives
       none to cite); it reproduces Eci at transfer and Ec in service exactly as 5.9.3.4 uses them.
-      With ``E_28`` given, E(t) = E_28 · (f'c(t)/f'c)^0.33.
+      With ``E_28`` given, E(t) = E_28 · (f'c(t)/f'c)^n, n = 0.33, or n recalibrated so that
+      E(age_f_ci) = ``E_ci`` when that is given (:func:`_calibrated_exponent`; n = 0.33 exactly
+      when the job's moduli come from Eq. 5.4.2.4-1 with any wc and K1).
+    * Transfer at 28 days or later: with f'ci = f'c the strength is f'c from then on (a = 0);
+      with f'ci < f'c the law cannot reach f'c at 28 days and a ``ValueError`` names
+      ``age_f_ci``.
 
     Attributes:
         f_c: specified compressive strength at 28 days f'c, MPa.
@@ -214,10 +295,11 @@ class AashtoModel(_Base):
         unit_weight: wc for Eq. 5.4.2.4-1, N/mm³ (0.090 to 0.155 kcf); not needed with ``E_28``.
         age_at_end_of_curing: start of drying, days.
         f_ci: strength at the first loading (transfer) f'ci, MPa; ``None`` = 0.80 f'c.
-        age_f_ci: age at which f'ci is reached, days (0 < age < 28); ``None`` = the age at the
-            end of curing.
+        age_f_ci: age at which f'ci is reached, days (> 0; under 28 unless f'ci = f'c);
+            ``None`` = the age at the end of curing.
         K_1: aggregate correction factor of Eq. 5.4.2.4-1.
         E_28: modulus at 28 days, MPa, if given (overrides Eq. 5.4.2.4-1).
+        E_ci: modulus at ``age_f_ci``, MPa, if given (calibrates the exponent, see above).
     """
 
     f_c: float
@@ -229,10 +311,12 @@ class AashtoModel(_Base):
     age_f_ci: float | None = None
     K_1: float = 1.0
     E_28: float | None = None
+    E_ci: float | None = None
     min_loading_age: float = field(default=0.0, init=False)
     _a: float = field(default=0.0, init=False, repr=False)
     _b: float = field(default=1.0, init=False, repr=False)
     _E28: float = field(default=0.0, init=False, repr=False)
+    _n: float = field(default=0.33, init=False, repr=False)
 
     name: ClassVar[str] = "aashto"
     phi_reference: ClassVar[str] = "loading"
@@ -247,9 +331,15 @@ class AashtoModel(_Base):
         if fci > fc:
             raise ValueError(f"f_ci must not exceed f_c ({fc:g} MPa), got {fci:g} MPa")
         t1 = tc if self.age_f_ci is None else _positive("age_f_ci", self.age_f_ci, "days")
-        if not 0.0 < t1 < 28.0:
-            raise ValueError(f"age_f_ci must be between 0 and 28 days, got {t1:g}")
-        a = t1 * (fc / fci - 1.0) / (1.0 - t1 / 28.0)
+        if fci >= fc * (1.0 - 1e-12):
+            a = 0.0  # no strength gain after the age of f'ci: f'c from then on
+        elif t1 < 28.0:
+            a = t1 * (fc / fci - 1.0) / (1.0 - t1 / 28.0)
+        else:
+            raise ValueError(
+                f"age_f_ci must be under 28 days when f_ci ({fci:g} MPa) is below f_c "
+                f"({fc:g} MPa): the strength law reaches f_c at 28 days; got {t1:g}"
+            )
         object.__setattr__(self, "_a", a)
         object.__setattr__(self, "_b", 1.0 - a / 28.0)
         if self.E_28 is not None:
@@ -265,6 +355,7 @@ class AashtoModel(_Base):
             _positive("K_1", self.K_1, "")
             E28 = 120_000.0 * self.K_1 * w**2.0 * (fc / KSI_MPA) ** 0.33 * KSI_MPA
         object.__setattr__(self, "_E28", E28)
+        object.__setattr__(self, "_n", _calibrated_exponent(0.33, fci / fc, self.E_ci, E28))
         # surface the code's own soft limits once (f'ci above 15 ksi)
         aashto_cs.k_f(self.f_ci_ksi)
 
@@ -282,7 +373,7 @@ class AashtoModel(_Base):
 
     def E(self, age: ArrayLike) -> FloatArray:
         """AASHTO LRFD 9th Ed. (2020) Eq. 5.4.2.4-1 at the strength of age t, MPa."""
-        return self._E28 * (self.strength(age) / self.f_c) ** 0.33
+        return self._E28 * (self.strength(age) / self.f_c) ** self._n
 
     def _phi(self, t: FloatArray, t0: FloatArray) -> FloatArray:
         return np.asarray(
@@ -319,9 +410,18 @@ class Aci209Model(_Base):
     """ACI 209R-92 Chapter 2 creep and shrinkage with the Eq. 2-1 strength and Eq. 2-5 modulus.
 
     * Strength: (f'c)t = t / (a + β t) · (f'c)28 (Eq. 2-1), a and β of Table 2.2.1 by curing and
-      cement type unless given (from memory).
+      cement type unless given (from memory). With ``f_ci`` given, β stays that of Table 2.2.1
+      (fixed by the curing and cement type) and a is fitted so that the strength at
+      ``age_f_ci`` is f'ci: a = t_ci (f'c/f'ci − β) (> 0 for any f'ci ≤ f'c since β < 1). The
+      fitted law reaches f'c at t = a/(1 − β) and gives t/(a + βt) somewhat above 1 at 28 days
+      (the published pairs of Table 2.2.1 give about 1.01), up to 1/β in the long run.
     * Modulus: Ect = gct [w³ (f'c)t]^½ with gct = 33, w in pcf and (f'c)t in psi (Eq. 2-5, from
-      memory). With ``E_28`` given, E(t) = E_28 · [(f'c)t / (f'c)28-from-Eq.2-1]^½.
+      memory). With ``E_28`` given, E(t) = E_28 · [(f'c)t / f_ref]^n with the square root of
+      Eq. 2-5, n = ½, or n recalibrated so that E(age_f_ci) = ``E_ci`` when that is given
+      (:func:`_calibrated_exponent`); f_ref is the Eq. 2-1 strength at 28 days, or, with
+      ``f_ci`` given, f'c itself: ``E_28`` is then the modulus at the strength f'c, as a job's
+      Ec is (the fitted law reaches f'c before 28 days for an early transfer, and after it for
+      a transfer at 28 days or later, where a 28-day reference would make no sense).
     * Creep: νt of Eq. 2-8 with the factors of 2.5 (loading age, humidity, v/s; the other
       factors at their standard values); νt is the ratio of creep strain to the initial strain
       (2.4, from memory), so J = (1 + νt) / E(t0) (``phi_reference`` ``"loading"``).
@@ -336,9 +436,14 @@ class Aci209Model(_Base):
         curing: "moist" or "steam".
         age_at_end_of_curing: days (> 0).
         cement_type: "I" or "III" (Table 2.2.1).
-        a: a of Eq. 2-1, days; ``None`` from Table 2.2.1.
+        a: a of Eq. 2-1, days; ``None`` from Table 2.2.1, or fitted to ``f_ci`` when that is
+            given (giving both is an error).
         beta: β of Eq. 2-1; ``None`` from Table 2.2.1.
-        E_28: modulus at 28 days, MPa, if given (overrides Eq. 2-5).
+        E_28: modulus at 28 days, MPa, if given (overrides Eq. 2-5); with ``f_ci`` given, the
+            modulus at the strength f'c (see above).
+        f_ci: strength at ``age_f_ci`` (transfer), MPa, if given (fits a, see above).
+        age_f_ci: age of ``f_ci`` and ``E_ci``, days; ``None`` = the age at the end of curing.
+        E_ci: modulus at ``age_f_ci``, MPa, if given (calibrates the exponent, see above).
     """
 
     f_c: float
@@ -351,10 +456,15 @@ class Aci209Model(_Base):
     a: float | None = None
     beta: float | None = None
     E_28: float | None = None
+    f_ci: float | None = None
+    age_f_ci: float | None = None
+    E_ci: float | None = None
     min_loading_age: float = field(default=7.0, init=False)
     _a: float = field(default=4.0, init=False, repr=False)
     _beta: float = field(default=0.85, init=False, repr=False)
-    _E_scale: float = field(default=0.0, init=False, repr=False)
+    _E_ref: float = field(default=0.0, init=False, repr=False)
+    _ratio_ref: float = field(default=1.0, init=False, repr=False)
+    _n: float = field(default=0.5, init=False, repr=False)
 
     name: ClassVar[str] = "aci209"
     phi_reference: ClassVar[str] = "loading"
@@ -373,19 +483,39 @@ class Aci209Model(_Base):
         if (curing, cement) not in ACI_STRENGTH_CONSTANTS:
             raise ValueError(f"cement_type must be 'I' or 'III', got {self.cement_type!r}")
         a0, b0 = ACI_STRENGTH_CONSTANTS[(curing, cement)]
-        a = a0 if self.a is None else _positive("a", self.a, "days")
         b = b0 if self.beta is None else _positive("beta", self.beta, "")
+        t_ci = (
+            self.age_at_end_of_curing
+            if self.age_f_ci is None
+            else _positive("age_f_ci", self.age_f_ci, "days")
+        )
+        if self.f_ci is not None:
+            if self.a is not None:
+                raise ValueError("a and f_ci must not both be given (a is fitted to f_ci)")
+            fci = _positive("f_ci", self.f_ci, "MPa")
+            if fci > fc:
+                raise ValueError(f"f_ci must not exceed f_c ({fc:g} MPa), got {fci:g} MPa")
+            a = t_ci * (fc / fci - b)
+            if a <= 0.0:
+                raise ValueError(f"beta must be below f_c / f_ci ({fc / fci:.4g}), got {b:g}")
+        else:
+            a = a0 if self.a is None else _positive("a", self.a, "days")
         object.__setattr__(self, "_a", a)
         object.__setattr__(self, "_beta", b)
         object.__setattr__(self, "min_loading_age", 7.0 if curing == "moist" else 1.0)
         if self.E_28 is not None:
-            scale = _positive("E_28", self.E_28, "MPa") / np.sqrt(self._ratio(28.0))
+            E_ref = _positive("E_28", self.E_28, "MPa")
+            ratio_ref = 1.0 if self.f_ci is not None else float(self._ratio(28.0))
         else:
             if self.unit_weight is None:
                 raise ValueError("unit_weight must be given (N/mm^3) when E_28 is not")
             w = _positive("unit_weight", self.unit_weight, "N/mm^3") / PCF_N_MM3
-            scale = 33.0 * np.sqrt(w**3 * fc / PSI_MPA) * PSI_MPA
-        object.__setattr__(self, "_E_scale", float(scale))
+            E_ref = 33.0 * np.sqrt(w**3 * fc / PSI_MPA) * PSI_MPA
+            ratio_ref = 1.0
+        object.__setattr__(self, "_E_ref", float(E_ref))
+        object.__setattr__(self, "_ratio_ref", ratio_ref)
+        r_ci = float(self._ratio(t_ci)) / ratio_ref
+        object.__setattr__(self, "_n", _calibrated_exponent(0.5, r_ci, self.E_ci, float(E_ref)))
         # surface the code's own soft limits once (humidity, curing duration)
         aci.gamma_lambda_creep(self.relative_humidity)
         aci.gamma_cp(self.age_at_end_of_curing, curing)
@@ -400,7 +530,7 @@ class Aci209Model(_Base):
 
     def E(self, age: ArrayLike) -> FloatArray:
         """ACI 209R-92 Eq. 2-5 (from memory) at the Eq. 2-1 strength of age t, MPa."""
-        return self._E_scale * np.sqrt(self._ratio(_age(age)))
+        return self._E_ref * (self._ratio(_age(age)) / self._ratio_ref) ** self._n
 
     def _phi(self, t: FloatArray, t0: FloatArray) -> FloatArray:
         return np.asarray(
@@ -445,6 +575,23 @@ def _maturity(age: FloatArray, tc: float, tTc: float | None) -> FloatArray:
     return np.where(age <= tc, age * (tTc / tc), tTc + (age - tc))
 
 
+def _beta_cc(tT: FloatArray, s: float) -> FloatArray:
+    """βcc(t) = exp{s [1 − (28/t)^½]} (MC2010 Eq. 5.1-51, EN 1992-1-1 Eq. 3.2); 0 at t = 0."""
+    with np.errstate(divide="ignore"):
+        return np.where(tT > 0.0, np.exp(s * (1.0 - np.sqrt(28.0 / np.maximum(tT, 1e-300)))), 0.0)
+
+
+def _fib_maturity(m: Any, exponent: float) -> None:
+    """Set the equivalent age at the end of curing and the modulus exponent of a fib model."""
+    tTc = m.equivalent_age_at_end_of_curing
+    if m.f_ci is not None:
+        tTc = _equivalent_age(float(m.f_ci), float(m.f_ck), m._fcm, m._s)
+    object.__setattr__(m, "_tTc", tTc)
+    t_end = m.age_at_end_of_curing if tTc is None else tTc
+    ratio = float(_beta_cc(np.asarray(float(t_end)), m._s))
+    object.__setattr__(m, "_n", _calibrated_exponent(exponent, ratio, m.E_ci, m._E28))
+
+
 @dataclass(frozen=True)
 class Mc2010Model(_Base):
     """fib Model Code 2010 (2013) 5.1.9.4 creep and shrinkage with the Eq. 5.1-21/5.1-56 modulus.
@@ -459,7 +606,13 @@ class Mc2010Model(_Base):
       drying from ``age_at_end_of_curing``; already negative for shortening.
     * ``equivalent_age_at_end_of_curing``: the temperature-adjusted age tT (Eq. 5.1-85) reached at
       the end of curing (e.g. after steam curing); the concrete is taken at 20 °C afterwards.
-      ``None`` = cured at 20 °C (tT = t). It enters βcc and the adjusted age at loading only.
+      ``None`` = cured at 20 °C (tT = t). It enters βcc (strength and modulus) and the adjusted
+      age at loading of creep (Eq. 5.1-73); shrinkage keeps the real ages.
+    * ``f_ci``: the characteristic strength at the end of curing (transfer of a precast girder);
+      when given, the equivalent age is fitted so that fcm(tT) = βcc(tT) fcm = f_ci + 8 MPa
+      (:func:`_equivalent_age`, 5.1.9.1 Eq. 5.1-51 with the temperature-adjusted age of 5.1.10).
+    * ``E_ci``: the tangent modulus at the end of curing, if given: the exponent ½ of Eq. 5.1-57
+      is recalibrated so that E passes through it (:func:`_calibrated_exponent`).
 
     Attributes:
         f_ck: characteristic strength, MPa.
@@ -471,6 +624,8 @@ class Mc2010Model(_Base):
         alpha_E: aggregate factor αE of Table 5.1-6 (1.0 quartzite).
         equivalent_age_at_end_of_curing: tT at the end of curing, days, or ``None``.
         E_28: 28-day tangent modulus, MPa, if given (overrides Eq. 5.1-21).
+        f_ci: characteristic strength at the end of curing, MPa, or ``None``.
+        E_ci: tangent modulus at the end of curing, MPa, or ``None``.
     """
 
     f_ck: float
@@ -482,10 +637,14 @@ class Mc2010Model(_Base):
     alpha_E: float = 1.0
     equivalent_age_at_end_of_curing: float | None = None
     E_28: float | None = None
+    f_ci: float | None = None
+    E_ci: float | None = None
     min_loading_age: float = field(default=mc.T0_LOWER_DAYS, init=False)
     _fcm: float = field(default=0.0, init=False, repr=False)
     _s: float = field(default=0.25, init=False, repr=False)
     _E28: float = field(default=0.0, init=False, repr=False)
+    _tTc: float | None = field(default=None, init=False, repr=False)
+    _n: float = field(default=0.5, init=False, repr=False)
 
     name: ClassVar[str] = "mc2010"
     phi_reference: ClassVar[str] = "28-day"
@@ -507,19 +666,26 @@ class Mc2010Model(_Base):
             else 21_500.0 * _positive("alpha_E", self.alpha_E, "") * (fcm / 10.0) ** (1.0 / 3.0)
         )
         object.__setattr__(self, "_E28", E28)
+        _fib_maturity(self, 0.5)
         # surface the code's own soft limits once (fcm, RH)
         mc.beta_RH_creep(self.relative_humidity, self.notional_size)
         mc.beta_bc_fcm(fcm)
 
+    @property
+    def maturity_at_end_of_curing(self) -> float:
+        """Temperature-adjusted age at the end of curing (given, fitted to f_ci, or real), d."""
+        return self.age_at_end_of_curing if self._tTc is None else self._tTc
+
     def _tT(self, age: FloatArray) -> FloatArray:
-        return _maturity(age, self.age_at_end_of_curing, self.equivalent_age_at_end_of_curing)
+        return _maturity(age, self.age_at_end_of_curing, self._tTc)
+
+    def strength(self, age: ArrayLike) -> FloatArray:
+        """fib MC2010 (2013) Eq. 5.1-50/5.1-51: mean strength fcm(t) at age t, MPa."""
+        return self._fcm * _beta_cc(self._tT(_age(age)), self._s)
 
     def E(self, age: ArrayLike) -> FloatArray:
         """fib MC2010 (2013) Eq. 5.1-56/5.1-57 with Eq. 5.1-51: tangent modulus at age t, MPa."""
-        tT = self._tT(_age(age))
-        with np.errstate(divide="ignore"):
-            beta_cc = np.where(tT > 0.0, np.exp(self._s * (1.0 - np.sqrt(28.0 / tT))), 0.0)
-        return self._E28 * np.sqrt(beta_cc)
+        return self._E28 * _beta_cc(self._tT(_age(age)), self._s) ** self._n
 
     def _phi(self, t: FloatArray, t0: FloatArray) -> FloatArray:
         return np.asarray(
@@ -569,6 +735,12 @@ class En1992Model(_Base):
     * Shrinkage: −εcs = −(εcd + εca) (Eq. 3.8 to 3.13), autogenous from casting, drying from
       ``age_at_end_of_curing``.
     * ``equivalent_age_at_end_of_curing``: as for :class:`Mc2010Model` (Eq. B.10).
+    * ``f_ci``: the characteristic strength at the end of curing (transfer); when given, the
+      equivalent age is fitted so that fcm(tT) = βcc(tT) fcm = f_ci + 8 MPa (3.1.2(6), Eq. 3.1
+      and 3.2; fck(t) = fcm(t) − 8 MPa, 3.1.2(5)) with the temperature-adjusted age of B.1(2)
+      Eq. B.10 (:func:`_equivalent_age`).
+    * ``E_ci``: the tangent modulus at the end of curing, if given: the exponent 0.3 of Eq. 3.5
+      is recalibrated so that E passes through it (:func:`_calibrated_exponent`).
 
     Attributes:
         f_ck: characteristic strength, MPa.
@@ -579,6 +751,8 @@ class En1992Model(_Base):
         f_cm: mean strength, MPa; ``None`` = fck + 8 (Table 3.1).
         equivalent_age_at_end_of_curing: tT at the end of curing, days, or ``None``.
         E_28: 28-day tangent modulus Ec, MPa, if given (overrides 1.05 Ecm of Table 3.1).
+        f_ci: characteristic strength at the end of curing, MPa, or ``None``.
+        E_ci: tangent modulus at the end of curing, MPa, or ``None``.
     """
 
     f_ck: float
@@ -589,10 +763,14 @@ class En1992Model(_Base):
     f_cm: float | None = None
     equivalent_age_at_end_of_curing: float | None = None
     E_28: float | None = None
+    f_ci: float | None = None
+    E_ci: float | None = None
     min_loading_age: float = field(default=0.0, init=False)
     _fcm: float = field(default=0.0, init=False, repr=False)
     _s: float = field(default=0.25, init=False, repr=False)
     _E28: float = field(default=0.0, init=False, repr=False)
+    _tTc: float | None = field(default=None, init=False, repr=False)
+    _n: float = field(default=0.3, init=False, repr=False)
 
     name: ClassVar[str] = "en1992"
     phi_reference: ClassVar[str] = "28-day"
@@ -611,19 +789,26 @@ class En1992Model(_Base):
             else 1.05 * 22_000.0 * (fcm / 10.0) ** 0.3
         )
         object.__setattr__(self, "_E28", E28)
+        _fib_maturity(self, 0.3)
         # surface the code's own soft limits once (RH, fck)
         en.beta_RH(self.relative_humidity)
         en.epsilon_ca_inf(self.f_ck)
 
+    @property
+    def maturity_at_end_of_curing(self) -> float:
+        """Temperature-adjusted age at the end of curing (given, fitted to f_ci, or real), d."""
+        return self.age_at_end_of_curing if self._tTc is None else self._tTc
+
     def _tT(self, age: FloatArray) -> FloatArray:
-        return _maturity(age, self.age_at_end_of_curing, self.equivalent_age_at_end_of_curing)
+        return _maturity(age, self.age_at_end_of_curing, self._tTc)
+
+    def strength(self, age: ArrayLike) -> FloatArray:
+        """EN 1992-1-1:2004 Eq. 3.1 and 3.2: mean strength fcm(t) at age t, MPa."""
+        return self._fcm * _beta_cc(self._tT(_age(age)), self._s)
 
     def E(self, age: ArrayLike) -> FloatArray:
         """EN 1992-1-1:2004 Eq. 3.5 with 3.1, 3.2, times 1.05 (3.1.4(2)): tangent modulus, MPa."""
-        tT = self._tT(_age(age))
-        with np.errstate(divide="ignore"):
-            beta_cc = np.where(tT > 0.0, np.exp(self._s * (1.0 - np.sqrt(28.0 / tT))), 0.0)
-        return self._E28 * beta_cc**0.3
+        return self._E28 * _beta_cc(self._tT(_age(age)), self._s) ** self._n
 
     def _phi(self, t: FloatArray, t0: FloatArray) -> FloatArray:
         return np.asarray(

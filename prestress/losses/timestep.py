@@ -59,7 +59,10 @@ once for each source with the same stiffness: the loads of the step (elastic), t
 past stresses, the shrinkage of the step and the relaxation of the step. The strand stress change
 of each solution is that mechanism's share in the step; the shares add up to the total. (The
 creep share therefore includes the creep of the concrete stresses that earlier shrinkage and
-relaxation produced.)
+relaxation produced.) The creep and shrinkage shares are also split by concrete part (one more
+solution per part and mechanism, same stiffness; ``TimeStepResult.losses_by_part``), so the
+effect of the deck's shrinkage and creep on the strand is reported apart from the girder's; the
+parts' shares add up to the combined share (linearity), which alone enters the totals.
 
 Vectorised over stations: all stations share the concrete parts and the time grid; strand
 heights, areas, stresses and the load moments may differ by station. Each step solves one 2×2
@@ -214,6 +217,9 @@ class TimeStepResult:
         layer_names: names of the strand layers.
         bar_names: names of the bar layers.
         ages_out: the output ages the caller asked for.
+        losses_by_part: ``"creep"`` and ``"shrinkage"`` → part name → that part's share of the
+            loss of each strand layer, MPa, shape (n, S, L); the parts' shares add up to
+            ``losses["creep"]`` and ``losses["shrinkage"]`` (to round-off).
     """
 
     ages: FloatArray
@@ -232,6 +238,7 @@ class TimeStepResult:
     layer_names: tuple[str, ...]
     bar_names: tuple[str, ...]
     ages_out: tuple[float, ...]
+    losses_by_part: dict[str, dict[str, FloatArray]] = field(default_factory=dict)
 
     @property
     def total_loss(self) -> FloatArray:
@@ -690,6 +697,7 @@ def run_timestep(
     rec_k = np.zeros((nr, S))
     rec_fp = np.zeros((nr, S, L))
     rec_loss = {c: np.zeros((nr, S, L)) for c in LOSS_COMPONENTS}
+    rec_part = np.zeros((2, P, nr, S, L))  # creep, shrinkage by part
     rec_p = np.zeros((P, nr, S))
     rec_q = np.zeros((P, nr, S))
     rec_fb = np.zeros((nr, S, B))
@@ -699,6 +707,7 @@ def run_timestep(
     kap = np.zeros(S)
     fp = fpbt.copy()
     loss = {c: np.zeros((S, L)) for c in LOSS_COMPONENTS}
+    loss_part = np.zeros((2, P, S, L))
     p_c = np.zeros((P, S))
     q_c = np.zeros((P, S))
     fb = np.zeros((S, B))
@@ -710,8 +719,10 @@ def run_timestep(
         k11 = ks11.copy()
         k12 = ks12.copy()
         k22 = ks22.copy()
-        F1 = np.zeros((4, S))
-        F2 = np.zeros((4, S))
+        # right-hand sides: loads, creep, shrinkage, relaxation, then creep of each part and
+        # shrinkage of each part (for the split by part only; rows 4.. are not added to rows 0..3)
+        F1 = np.zeros((4 + 2 * P, S))
+        F2 = np.zeros((4 + 2 * P, S))
         F1[0] = dN_ext[j]
         F2[0] = dM_ext[j]
         creep_a = np.zeros((P, S))
@@ -725,10 +736,14 @@ def run_timestep(
                 ab = dJ[k, j, :j] @ hist[k, :j]
                 creep_a[k] = ab[:S]
                 creep_b[k] = ab[S:]
-                F1[1] += Ek * (A[k] * creep_a[k] + Sz[k] * creep_b[k])
-                F2[1] += Ek * (Sz[k] * creep_a[k] + Iz[k] * creep_b[k])
-                F1[2] += Ek * A[k] * dsh[k, j]
-                F2[2] += Ek * Sz[k] * dsh[k, j]
+                F1[4 + k] = Ek * (A[k] * creep_a[k] + Sz[k] * creep_b[k])
+                F2[4 + k] = Ek * (Sz[k] * creep_a[k] + Iz[k] * creep_b[k])
+                F1[4 + P + k] = Ek * A[k] * dsh[k, j]
+                F2[4 + P + k] = Ek * Sz[k] * dsh[k, j]
+                F1[1] += F1[4 + k]
+                F2[1] += F2[4 + k]
+                F1[2] += F1[4 + P + k]
+                F2[2] += F2[4 + P + k]
         dR = np.zeros((S, L))
         if not instant[j] and relax.any():
             dR = _relaxation_step(fp, R_acc, fpy, C, relax, ts[j], te[j], stress_age)
@@ -738,8 +753,8 @@ def run_timestep(
         det = k11 * k22 - k12**2
         de = (k22 * F1 - k12 * F2) / det
         dk = (k11 * F2 - k12 * F1) / det
-        de_t = de.sum(axis=0)
-        dk_t = dk.sum(axis=0)
+        de_t = de[:4].sum(axis=0)
+        dk_t = dk[:4].sum(axis=0)
         e_r += de_t
         kap += dk_t
         for k in active:
@@ -751,13 +766,15 @@ def run_timestep(
             p_c[k] += dp
             q_c[k] += dq
         # strand stress change by mechanism
-        dfp = Ep * (de[:, :, None] + dk[:, :, None] * zp[None])  # (4, S, L)
+        dfp = Ep * (de[:, :, None] + dk[:, :, None] * zp[None])  # (4 + 2P, S, L)
         dfp[3] -= dR
-        fp += dfp.sum(axis=0)
+        fp += dfp[:4].sum(axis=0)
         loss["elastic_transfer" if j == 0 else "elastic_later"] -= dfp[0]
         loss["creep"] -= dfp[1]
         loss["shrinkage"] -= dfp[2]
         loss["relaxation"] -= dfp[3]
+        loss_part[0] -= dfp[4 : 4 + P]
+        loss_part[1] -= dfp[4 + P :]
         if B:
             on = np.array([join[bar_part[i]] <= j for i in range(B)])
             fb += np.where(on, Es * (de_t[:, None] + dk_t[:, None] * zb), 0.0)
@@ -767,6 +784,7 @@ def run_timestep(
         rec_fp[r] = fp
         for c in LOSS_COMPONENTS:
             rec_loss[c][r] = loss[c]
+        rec_part[:, :, r] = loss_part
         rec_p[:, r] = p_c
         rec_q[:, r] = q_c
         rec_fb[r] = fb
@@ -805,6 +823,10 @@ def run_timestep(
         layer_names=tuple(lay.name or f"layer {i + 1}" for i, lay in enumerate(layers)),
         bar_names=tuple(bar.name or f"bars {i + 1}" for i, bar in enumerate(bars)),
         ages_out=tuple(out),
+        losses_by_part={
+            mech: {p.name: rec_part[i, k] for k, p in enumerate(parts)}
+            for i, mech in enumerate(("creep", "shrinkage"))
+        },
     )
 
 

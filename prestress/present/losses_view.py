@@ -20,8 +20,22 @@ MECHANISMS = {
     "creep": "Creep of the girder",
     "relaxation": "Relaxation of the strand",
     "deck_shrinkage_gain": "Deck shrinkage (gain)",
+    "deck_creep": "Creep of the deck",
     "elastic_gain": "Elastic gain from later loads",
 }
+
+#: What the comparison adds to the name of a mechanism that is reported but not in the total.
+NOT_IN_TOTAL = " (reported, not in total)"
+
+
+def in_total(components: list[LossComponent]) -> bool:
+    """Whether a mechanism's components count in the total fpj − fpe.
+
+    Elastic shortening always does (on transformed sections it is reported, not applied, but
+    fpe is the real strand stress); a component after transfer counts only when applied (the
+    elastic gains from later loads are reported, the stage engine applies the loads itself).
+    """
+    return any(c.applied or c.period in ("before transfer", "at transfer") for c in components)
 
 
 def mechanism(c: LossComponent) -> str:
@@ -106,7 +120,8 @@ def compare_table(results: list[LossBreakdown], A_ps: float, system: str) -> Tab
         title_style="bold",
         box=box.SIMPLE_HEAD,
         caption=f"Stresses in {su}, forces in {fu}; losses positive, gains negative; "
-        "a mechanism a method does not model is shown as —.",
+        "a mechanism a method does not model is shown as —. Totals are fpj − fpe, jacking to "
+        f"final; rows marked{NOT_IN_TOTAL} are not part of them.",
         caption_justify="left",
     )
     t.add_column("Mechanism", min_width=22)
@@ -115,9 +130,14 @@ def compare_table(results: list[LossBreakdown], A_ps: float, system: str) -> Tab
     sums = [by_mechanism(b) for b in results]
     keys = [k for k in MECHANISMS if any(k in s for s in sums)]
     for k in keys:
-        t.add_row(MECHANISMS[k], *[fmt(s[k], system, "stress", 2) if k in s else "—" for s in sums])
+        comps = [c for b in results for c in b.components if mechanism(c) == k]
+        name = MECHANISMS[k] + ("" if in_total(comps) else NOT_IN_TOTAL)
+        t.add_row(name, *[fmt(s[k], system, "stress", 2) if k in s else "—" for s in sums])
     t.add_section()
-    t.add_row("[bold]Total[/]", *[f"[bold]{fmt(b.total, system, 'stress', 2)}[/]" for b in results])
+    t.add_row(
+        "[bold]Total (fpj − fpe)[/]",
+        *[f"[bold]{fmt(b.total, system, 'stress', 2)}[/]" for b in results],
+    )
     t.add_row("% of fpj", *[f"{100 * b.total / b.jacking_stress:.1f}" for b in results])
     t.add_row("Effective stress fpe", *[fmt(b.f_pe, system, "stress", 2) for b in results])
     t.add_row("Effective force Pe", *[fmt(b.f_pe * A_ps, system, "force", 1) for b in results])

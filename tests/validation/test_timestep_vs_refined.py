@@ -123,8 +123,9 @@ def _models(name: str):
         girder = dict(
             f_c=F_C * KSI, unit_weight=wc, relative_humidity=H_RH, volume_to_surface=VS_G * IN,
             curing="steam", age_at_end_of_curing=T_I,
-            # Eq. 2-1 with β of Table 2.2.1 (steam, Type I) and a fitted to f'ci at 1 day
-            beta=0.95, a=F_C / F_CI - 0.95,
+            # Eq. 2-1 with β of Table 2.2.1 (steam, Type I) and a fitted to f'ci at 1 day:
+            # a = 1 × (F_C/F_CI − 0.95) (the adapter fits it)
+            f_ci=F_CI * KSI, age_f_ci=T_I,
         )  # fmt: skip
         deck = dict(
             f_c=F_C_DECK * KSI, unit_weight=wc, relative_humidity=H_RH,
