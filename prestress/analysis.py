@@ -104,6 +104,9 @@ def resolve_girder(job: Job, *, cli_libraries: tuple[str, ...] = ()) -> Girder:
         )
         name, source, family = entry.name, entry.source, entry.family
     _check_strands_inside(job, resolved)
+    for concrete in (job.girder_concrete, job.deck.concrete if job.deck else None):
+        if concrete is not None and concrete.modulus_note:
+            notices.append(concrete.modulus_note)
     gross = resolved.gross
     girder_section = noncomposite(gross)
     comp = None

@@ -73,6 +73,8 @@ def _concrete(t: Table, name: str, *, at_transfer: bool) -> Concrete:
                 "fci", f"a concrete strength of at least {lo:.0f} MPa", f"{fci / KSI_MPA:.3g} ksi"
             )
     w = t.quantity("unit_weight", "unit_weight", positive=True)
+    w_mod_given = t.has("modulus_unit_weight")
+    note = ""
     w_mod = t.quantity("modulus_unit_weight", "unit_weight", w, positive=True)
     if not 1.0e-5 <= w <= 3.0e-5:
         raise t.error(
@@ -99,6 +101,14 @@ def _concrete(t: Table, name: str, *, at_transfer: bool) -> Concrete:
                 ) from None
             raise t.error("modulus", f"inputs within the formula's range ({exc})") from None
         source = MODULUS_FORMULAS[formula]
+        if not w_mod_given and w > PLAIN_CONCRETE_MAX:
+            note = (
+                f"the {name} modulus uses the dead-load unit weight "
+                f"{w * 304.8**3 / 4.4482216152605:.0f} pcf; the modulus formulas take the "
+                "weight of the concrete itself (AASHTO LRFD Table 3.5.1-1: 0.145 kcf up to 5 ksi, "
+                "0.140 + 0.001 f'c kcf from 5 to 15 ksi, reinforcement adding 0.005 kcf for dead "
+                f"load; from memory): give {t.field('modulus_unit_weight')} to set it"
+            )
     else:
         try:
             Ec = to_internal(raw, "stress", field=t.field("modulus"), file=t.file)
@@ -125,7 +135,21 @@ def _concrete(t: Table, name: str, *, at_transfer: bool) -> Concrete:
                 f"{Eci / KSI_MPA:.4g} ksi",
             )
     t.done()
-    return Concrete(name=name, fc=fc, fci=fci, unit_weight=w, Ec=Ec, Eci=Eci, modulus_source=source)
+    return Concrete(
+        name=name,
+        fc=fc,
+        fci=fci,
+        unit_weight=w,
+        Ec=Ec,
+        Eci=Eci,
+        modulus_source=source,
+        modulus_note=note,
+    )
+
+
+#: Above this unit weight (0.1475 kcf, N/mm³) a unit weight looks like one of reinforced
+#: concrete for dead load rather than of the concrete itself (common practice).
+PLAIN_CONCRETE_MAX = 0.1475 * 4.4482216152605 / 304.8**3
 
 
 def _strand(t: Table) -> Strand:

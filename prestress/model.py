@@ -25,6 +25,7 @@ class Concrete:
         Ec: modulus at the design strength, MPa.
         Eci: modulus at transfer, MPa (None for a deck).
         modulus_source: how the moduli were obtained (formula and clause, or "given").
+        modulus_note: a remark on the moduli for the reviewer ("" when none).
     """
 
     name: str
@@ -34,6 +35,7 @@ class Concrete:
     Ec: float
     Eci: float | None
     modulus_source: str
+    modulus_note: str = ""
 
 
 @dataclass(frozen=True)

@@ -1,0 +1,43 @@
+"""A modulus computed from a dead-load unit weight is pointed out.
+
+AASHTO LRFD 9th Ed. (2020) Eq. 5.4.2.4-1 takes wc, the unit weight of the concrete itself;
+Table 3.5.1-1 gives 0.145 kcf up to 5 ksi and 0.140 + 0.001 f'c from 5 to 15 ksi, and
+reinforcement adds about 0.005 kcf for dead load (from memory). A job that gives only 150 pcf
+gets Ec from 150 pcf, about 7 % high at 145: the check says so.
+"""
+
+from __future__ import annotations
+
+from pathlib import Path
+
+from prestress.analysis import check_file
+from tests.conftest import ROOT
+
+HARPED = ROOT / "examples" / "harl-brook-span1-g2-harped.toml"
+
+
+def _copy(tmp_path: Path, text: str) -> Path:
+    job = tmp_path / "job.toml"
+    job.write_text(text, encoding="utf-8")
+    (tmp_path / "limits").mkdir(exist_ok=True)
+    (tmp_path / "limits" / "aashto-lrfd-9th-service.toml").write_bytes(
+        (ROOT / "examples" / "limits" / "aashto-lrfd-9th-service.toml").read_bytes()
+    )
+    return job
+
+
+def test_note_when_the_modulus_takes_the_dead_load_weight(tmp_path: Path) -> None:
+    text = HARPED.read_text(encoding="utf-8").replace('modulus_unit_weight = "145 pcf"', "")
+    r = check_file(_copy(tmp_path, text))
+    notes = [n for n in r.notes if "dead-load unit weight 150 pcf" in n]
+    assert len(notes) == 2  # girder and deck
+    assert any("girder.concrete.modulus_unit_weight" in n for n in notes)
+    # Ec ∝ wc² (Eq. 5.4.2.4-1): (150/145)² = 1.070 times the modulus at 145 pcf
+    base = check_file(HARPED)
+    ratio = r.girder.job.girder_concrete.Ec / base.girder.job.girder_concrete.Ec
+    assert abs(ratio - (150 / 145) ** 2) < 1e-9
+
+
+def test_no_note_when_the_modulus_weight_is_given() -> None:
+    r = check_file(HARPED)
+    assert not any("dead-load unit weight" in n for n in r.notes)
