@@ -413,6 +413,7 @@ class StageResult:
     strength_text: str
     stations: tuple[StationResult, ...]
     notes: tuple[str, ...] = ()
+    limits_key: str = ""  # the stage whose limits apply ("" : the key itself)
 
     @property
     def ok(self) -> bool:
@@ -519,7 +520,8 @@ def zone_at(
         raws = [stage_stresses(girder, losses, spec, stations_) for spec in stage_specs(girder)]
     for raw in raws:
         spec = raw.spec
-        for st, b in zip(raw.stations, zone_bounds(raw, _limits_of(girder, spec.key)), strict=True):
+        bounds_of_stage = zone_bounds(raw, _limits_of(girder, spec.limit_stage))
+        for st, b in zip(raw.stations, bounds_of_stage, strict=True):
             bounds.setdefault(round(st.x, 3), []).append(b)
     zone = []
     from prestress.stages import prestress_at
@@ -730,13 +732,13 @@ def run_check(job: Job, *, cli_libraries: tuple[str, ...] = ()) -> CheckResult:
                     assert job.deck is not None
                     fibers[fiber] = check_fiber(
                         float(f[i]),
-                        job.limits.get(spec.key, fiber),
+                        job.limits.get(spec.limit_stage, fiber),
                         job.deck.concrete.fc,
                         "f'c,deck",
                     )
                 else:
                     fibers[fiber] = check_fiber(
-                        float(f[i]), job.limits.get(spec.key, fiber), strength, sym
+                        float(f[i]), job.limits.get(spec.limit_stage, fiber), strength, sym
                     )
             st_results.append(
                 StationResult(
@@ -771,6 +773,7 @@ def run_check(job: Job, *, cli_libraries: tuple[str, ...] = ()) -> CheckResult:
         results.append(
             StageResult(
                 key=spec.key,
+                limits_key=spec.limit_stage,
                 title=spec.title,
                 description=f"{spec.description}; prestress on the {raw.section.name} section"
                 + (

@@ -1017,9 +1017,9 @@ class Evaluator:
         self.comp_limit = np.full((S, 3), np.nan)
         self.tens_limit = np.full((S, 3), np.nan)
         for si, spec in enumerate(self.specs):
-            lims = dict(_limits_of(g0, spec.key))
+            lims = dict(_limits_of(g0, spec.limit_stage))
             if job.deck is not None:
-                dl = job.limits.get(spec.key, "deck_top")
+                dl = job.limits.get(spec.limit_stage, "deck_top")
                 if dl is None:
                     lims["deck_top"] = (None, None)
                 else:

@@ -368,6 +368,23 @@ def service_iii_default(method: str, basis: str) -> Combination:
     )
 
 
+def _dynamic_factors(hd: Table) -> tuple[float, ...]:
+    """``dynamic_factor``: a number, or a list of up to three (each a handling case)."""
+    raw = hd.raw("dynamic_factor", 1.0, expected="a factor on the self-weight")
+    expected = "a factor from 0.5 to 2.0 on the self-weight, or a list of up to three such"
+    values = raw if isinstance(raw, list) else [raw]
+    if not 1 <= len(values) <= 3:
+        raise hd.error("dynamic_factor", expected, f"a list of {len(values)}")
+    out = []
+    for v in values:
+        if isinstance(v, bool) or not isinstance(v, int | float) or not 0.5 <= v <= 2.0:
+            raise hd.error("dynamic_factor", expected, repr(v))
+        out.append(float(v))
+    if len(set(out)) != len(out):
+        raise hd.error("dynamic_factor", "different factors (each is a case)", repr(raw))
+    return tuple(out)
+
+
 def _shear_distribution(t: Table, moment_by_aashto: bool) -> tuple[float | None, str]:
     """The live-load shear distribution factor: (factor, source).
 
@@ -990,7 +1007,7 @@ def load_job(path: str | Path) -> Job:
         lift = hd.quantity("lift_point", "length", positive=True)
         if lift >= length / 2.0:
             raise hd.error("lift_point", "a lifting point closer to the end than mid-length")
-        handling = Handling(lift, hd.number("dynamic_factor", 1.0, low=0.5, high=2.0))
+        handling = Handling(lift, _dynamic_factors(hd))
         hd.done()
     user_stations = []
     raw_st = top.raw("stations", [], expected="a list of stations")

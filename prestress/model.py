@@ -250,10 +250,19 @@ class Loads:
 
 @dataclass(frozen=True)
 class Handling:
-    """Lifting the girder out of the bed: lifting points from each end (mm), dynamic factor."""
+    """Lifting the girder out of the bed: lifting points from each end (mm), dynamic factors.
+
+    Each factor on the self-weight is a handling case of its own (e.g. 0.8 and 1.2 for a
+    sudden lift or drop; common practice), checked with the limits of the stage "handling".
+    """
 
     lift_point: float
-    dynamic_factor: float
+    dynamic_factors: tuple[float, ...] = (1.0,)
+
+    @property
+    def dynamic_factor(self) -> float:
+        """The first dynamic factor (the only one in most jobs)."""
+        return self.dynamic_factors[0]
 
 
 @dataclass(frozen=True)

@@ -111,6 +111,12 @@ class StageSpec:
     loads: tuple[str, ...]  # of "girder", "deck", "diaphragms", "superimposed", "live"
     strength: str  # "fci" or "fc"
     description: str
+    limits_key: str = ""  # the stage whose limits apply ("" : the key itself)
+
+    @property
+    def limit_stage(self) -> str:
+        """The key of the stage whose limits apply to this one."""
+        return self.limits_key or self.key
 
 
 #: The dead loads a stage may carry, in time order.
@@ -135,21 +141,24 @@ def stage_specs(girder: Girder) -> list[StageSpec]:
         )
     ]
     if job.handling is not None:
-        h = job.handling
-        specs.append(
-            StageSpec(
-                "handling",
-                "Handling: lifting from the bed",
-                "transfer",
-                "lifting",
-                h.dynamic_factor,
-                0.0,
-                ("girder",),
-                "fci",
-                f"initial prestress and girder self-weight × {h.dynamic_factor:g} "
-                "on the lifting points",
+        factors = job.handling.dynamic_factors
+        for i, factor in enumerate(factors, 1):
+            several = len(factors) > 1
+            specs.append(
+                StageSpec(
+                    f"handling_{i}" if several else "handling",
+                    "Handling: lifting from the bed"
+                    + (f", self-weight × {factor:g}" if several else ""),
+                    "transfer",
+                    "lifting",
+                    factor,
+                    0.0,
+                    ("girder",),
+                    "fci",
+                    f"initial prestress and girder self-weight × {factor:g} on the lifting points",
+                    limits_key="handling",
+                )
             )
-        )
     specs.append(
         StageSpec(
             "deck_placement",
@@ -576,8 +585,11 @@ def zone_bounds(
                 is_comp = lim is comp
                 # feasible side: for compression f ≥ comp; for tension f ≤ tens
                 upper_bound_on_e = (k < 0) if is_comp else (k > 0)
+                short = STAGE_SHORT.get(r.spec.limit_stage, r.spec.limit_stage)
+                if r.spec.key != r.spec.limit_stage:  # one of several handling cases
+                    short += f" ×{r.spec.dead:g}"
                 tag = (
-                    f"{STAGE_SHORT.get(r.spec.key, r.spec.key)} {fiber.replace('girder_', '')} "
+                    f"{short} {fiber.replace('girder_', '')} "
                     f"{'compression' if is_comp else 'tension'}"
                 )
                 if upper_bound_on_e:  # e ≤ e_lim  ⇔  y ≥ y_lim

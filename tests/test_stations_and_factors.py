@@ -73,3 +73,47 @@ def test_service_iii_factor_given_in_the_job_wins_and_is_said(tmp_path) -> None:
     r = check_file(job)
     s3 = next(s for s in r.stages if s.key == "service_iii")
     assert any("load factors: given in the job" in n for n in s3.notes)
+
+
+def test_two_handling_factors_are_two_cases(tmp_path) -> None:
+    # a sudden lift and a drop: self-weight × 1.2 and × 0.8 (common practice); each case is
+    # checked with the limits of the stage "handling"; the moment at midspan scales with the
+    # factor (statics)
+    text = HARPED.read_text(encoding="utf-8").replace(
+        "dynamic_factor = 1.0", "dynamic_factor = [0.8, 1.2]"
+    )
+    job = tmp_path / "job.toml"
+    job.write_text(text, encoding="utf-8")
+    (tmp_path / "limits").mkdir()
+    (tmp_path / "limits" / "aashto-lrfd-9th-service.toml").write_bytes(
+        (ROOT / "examples" / "limits" / "aashto-lrfd-9th-service.toml").read_bytes()
+    )
+    r = check_file(job)
+    base = check_file(HARPED)
+    keys = [s.key for s in r.stages]
+    assert keys[:3] == ["transfer", "handling_1", "handling_2"]
+    one = next(s for s in base.stages if s.key == "handling")
+    for key, factor in (("handling_1", 0.8), ("handling_2", 1.2)):
+        st = next(s for s in r.stages if s.key == key)
+        assert st.limits_key == "handling"
+        assert f"× {factor:g}" in st.title
+        i = [s.name for s in st.stations].index("midspan")
+        assert st.stations[i].moment == pytest.approx(factor * one.stations[i].moment, rel=1e-12)
+        lim = st.stations[i].fibers["girder_top"]
+        assert lim.compression_limit == one.stations[i].fibers["girder_top"].compression_limit
+    assert any("handling ×1.2" in z.governing_low or "handling ×0.8" in z.governing_low
+               for z in r.zone)  # fmt: skip
+
+
+@pytest.mark.parametrize("value", ["[]", "[0.8, 1.2, 1.0, 1.1]", "[0.8, 0.8]", "3.0", '"1.2"'])
+def test_bad_dynamic_factor(tmp_path, value: str) -> None:
+    from prestress.errors import InputError
+
+    text = HARPED.read_text(encoding="utf-8").replace(
+        "dynamic_factor = 1.0", f"dynamic_factor = {value}"
+    )
+    job = tmp_path / "job.toml"
+    job.write_text(text, encoding="utf-8")
+    with pytest.raises(InputError) as info:
+        load_job(job)
+    assert info.value.field == "handling.dynamic_factor"

@@ -452,7 +452,7 @@ def render(
     if table is not None:
         console.print(table)
     for i, stage in enumerate(result.stages, 1):
-        if stages is not None and stage.key not in stages:
+        if stages is not None and stage.key not in stages and stage.limits_key not in stages:
             continue
         if stations is not None:
             from dataclasses import replace

@@ -453,7 +453,10 @@ def _inputs(result: CheckResult, system: str) -> Section:
                         "Lifting points from each end",
                         _q(job.handling.lift_point, system, "position"),
                     ),
-                    ("Dynamic factor", f"{job.handling.dynamic_factor:g}"),
+                    (
+                        "Dynamic factors (one case each)",
+                        ", ".join(f"{f:g}" for f in job.handling.dynamic_factors),
+                    ),
                 ]
             )
         )
