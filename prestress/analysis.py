@@ -133,11 +133,18 @@ def resolve_girder(job: Job, *, cli_libraries: tuple[str, ...] = ()) -> Girder:
         assert gc.Eci is not None
         # strands at their midlength heights (harped strands: between the hold-downs)
         layers = [StrandLayer(r.count * job.strand.area, r.height) for r in job.rows]
+        approximations = []
         if any(r.harp is not None for r in job.rows):
-            notices.append(
-                "transformed sections use the strands at their midlength heights; "
-                "near the ends of harped strands this is an approximation"
-            )
+            approximations.append("near the ends of harped strands")
+        if job.layout is not None and any(s.debonded for s in job.layout.sets):
+            approximations.append("over the debonded lengths")
+        notices.append(
+            "transformed sections include every strand at its midlength height all along the "
+            "girder"
+            + (f" (an approximation {' and '.join(approximations)})" if approximations else "")
+            + "; the prestress of every stage, the losses after deck placement included, acts "
+            "on the girder alone (common simplification)"
+        )
         sec_t = transformed_girder(
             gross, layers, job.strand.Ep / gc.Eci, "girder, transformed at transfer (Eci)"
         )
