@@ -592,7 +592,7 @@ def development_lengths(
         fc / KSI_MPA,
     )
     fpe = losses.f_pe / KSI_MPA
-    depth_in = top / INCH_MM
+    depth_in = g.height / INCH_MM  # the member's depth: the girder (κ of 5.9.4.3.2)
     out = []
     lengths: dict[bool, float] = {}
     for debonded in (False, True):
@@ -603,9 +603,15 @@ def development_lengths(
         lengths[debonded] = ld * INCH_MM
         kind = "debonded strands" if debonded else "bonded strands"
         out.append(
-            f"development length of the {kind}: ld = {ld:.0f} in ({ld / 12:.1f} ft; "
-            f"AASHTO LRFD Eq. 5.9.4.3.2-1, κ = {kappa:g}, fps = {fps:.1f} ksi by Eq. "
-            f"5.6.3.1.1-1 at midspan, fpe = {fpe:.1f} ksi), from the end of bonding"
+            f"development length of the {kind}: ld = {ld:.0f} in ({ld / 12:.1f} ft, "
+            f"{ld * INCH_MM / 1000:.2f} m; AASHTO LRFD Eq. 5.9.4.3.2-1, κ = {kappa:g}, fps = "
+            f"{fps:.1f} ksi by Eq. 5.6.3.1.1-1 at midspan, fpe = {fpe:.1f} ksi), from the end "
+            "of bonding"
+        )
+    if fpe < 0.5 * job.strand.fpu / KSI_MPA:
+        out.append(
+            f"fpe = {fpe:.1f} ksi is below 0.5 fpu: Eq. 5.6.3.1.1-1 for fps (and the development "
+            "length from it) does not apply (AASHTO LRFD 5.6.3.1.1); use strain compatibility"
         )
     if job.deck is not None and c > job.deck.thickness / INCH_MM:
         out.append(
@@ -685,8 +691,10 @@ def deck_shrinkage_notes(girder: Girder, losses: LossBreakdown) -> list[str]:
     f = deck_shrinkage_stresses(one)
     return [
         f"the losses credit the prestress gain from deck shrinkage, but the stresses of the "
-        f"{text} are not applied: {f['girder_bottom'] / KSI_MPA:+.3f} ksi at the girder "
-        f"bottom, {f['girder_top'] / KSI_MPA:+.3f} ksi at its top along the span; "
+        f"{text} are not applied: {f['girder_bottom'] / KSI_MPA:+.3f} ksi "
+        f"({f['girder_bottom']:+.2f} MPa) at the girder bottom, "
+        f"{f['girder_top'] / KSI_MPA:+.3f} ksi ({f['girder_top']:+.2f} MPa) at its top along "
+        "the span; "
         "[loads] deck_shrinkage = 1 (or the owner's factor) applies them"
     ]
 

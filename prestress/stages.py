@@ -586,6 +586,8 @@ def zone_bounds(
                 # feasible side: for compression f ≥ comp; for tension f ≤ tens
                 upper_bound_on_e = (k < 0) if is_comp else (k > 0)
                 short = STAGE_SHORT.get(r.spec.limit_stage, r.spec.limit_stage)
+                if r.spec.title == "Post-tensioning":
+                    short = "stressing"
                 if r.spec.key != r.spec.limit_stage:  # one of several handling cases
                     short += f" ×{r.spec.dead:g}"
                 tag = (

@@ -89,7 +89,7 @@ def test_applied_stresses_equal_the_eccentric_force_on_the_composite_section(
 def test_note_when_the_gain_is_credited_but_the_stresses_are_not_applied() -> None:
     r = check_file(HARPED)
     note = next(n for n in r.notes if "credit the prestress gain from deck shrinkage" in n)
-    assert "+0.275 ksi at the girder bottom" in note
+    assert "+0.275 ksi (+1.90 MPa) at the girder bottom" in note
     assert "[loads] deck_shrinkage = 1" in note
 
 

@@ -63,3 +63,33 @@ def test_en1992_fctm_of_table_3_1() -> None:
     from prestress.model import TensionLimit
 
     assert TensionLimit(0.30, "MPa", None, 0.6667).value(30.0) == pytest.approx(2.9, rel=0.01)
+
+
+def test_alpha_1_of_5_6_2_2() -> None:
+    # AASHTO LRFD 9th Ed. (2020) 5.6.2.2 (from memory): 0.85 up to 10 ksi, −0.02 per ksi
+    # above, at least 0.75
+    from prestress.codes.aashto_lrfd.materials import alpha_1
+
+    assert alpha_1(8.0) == 0.85
+    assert alpha_1(10.0) == 0.85
+    assert alpha_1(12.0) == pytest.approx(0.81)
+    assert alpha_1(18.0) == 0.75
+
+
+def test_kappa_from_the_girder_depth_and_fps_validity_note(tmp_path) -> None:
+    # κ = 1.6 for members deeper than 24 in (5.9.4.3.2, from memory): a 21 in deep girder
+    # under a 8 in deck is a 21 in member (κ = 1.0), whatever the composite depth
+    from prestress.codes.aashto_lrfd.materials import kappa_development
+
+    assert kappa_development(21.0, False) == 1.0
+    assert kappa_development(29.0, False) == 1.6
+    # fpe below 0.5 fpu: Eq. 5.6.3.1.1-1 does not apply, and the check says so
+    from dataclasses import replace
+
+    from prestress.analysis import development_lengths, losses_file
+    from tests.conftest import US_EXAMPLE
+
+    girder, losses = losses_file(US_EXAMPLE)
+    low = replace(losses, f_pe=0.45 * girder.job.strand.fpu)
+    notes = development_lengths(girder, low)[1]
+    assert any("below 0.5 fpu" in n and "5.6.3.1.1" in n for n in notes)

@@ -81,18 +81,28 @@ def beta_1(f_c_ksi: float) -> float:
     return min(0.85, max(0.65, 0.85 - 0.05 * (f_c_ksi - 4.0)))
 
 
+def alpha_1(f_c_ksi: float) -> float:
+    """AASHTO LRFD 9th Ed. (2020) 5.6.2.2: stress-block factor α1.
+
+    α1 = 0.85 up to 10 ksi, reduced by 0.02 per ksi above 10 ksi, not below 0.75 (from
+    memory).
+    """
+    return min(0.85, max(0.75, 0.85 - 0.02 * (f_c_ksi - 10.0)))
+
+
 def f_ps_rectangular(
     A_ps: float, f_pu: float, f_py: float, d_p: float, b: float, f_c_ksi: float
 ) -> tuple[float, float]:
     """AASHTO LRFD 9th Ed. (2020) Eqs. 5.6.3.1.1-1, -2 and -4: fps for rectangular behaviour.
 
     fps = fpu (1 − k c/dp), k = 2 (1.04 − fpy/fpu), c = Aps fpu / (α1 f'c β1 b + k Aps fpu/dp),
-    with α1 = 0.85 and no mild reinforcement (kip, in, ksi).
+    with α1 of 5.6.2.2 and no mild reinforcement (kip, in, ksi). The equations hold for
+    fpe ≥ 0.5 fpu (5.6.3.1.1), which the caller checks.
 
     Returns:
         (fps in ksi, c in in).
     """
     k = 2.0 * (1.04 - f_py / f_pu)
     b1 = beta_1(f_c_ksi)
-    c = A_ps * f_pu / (0.85 * f_c_ksi * b1 * b + k * A_ps * f_pu / d_p)
+    c = A_ps * f_pu / (alpha_1(f_c_ksi) * f_c_ksi * b1 * b + k * A_ps * f_pu / d_p)
     return f_pu * (1.0 - k * c / d_p), c
