@@ -27,6 +27,7 @@ from prestress.sections.composite import (
 )
 from prestress.sections.properties import GrossProperties, ResolvedSection
 from prestress.stages import LoadEffects, ZoneStation, fiber_stress  # noqa: F401  (re-exported)
+from prestress.units import KSI_MPA
 
 SIGN_CONVENTION = "tension +, compression −"
 
@@ -199,9 +200,7 @@ def _with_distribution_factor(job: Job, gross: GrossProperties, comp, n_deck: fl
     live = job.loads.live
     moment_wanted = live.model == "HL-93" and live.distribution_factor is None
     shear_wanted = (
-        live.model == "HL-93"
-        and live.shear_distribution_factor is None
-        and live.shear_distribution_source.startswith("AASHTO")
+        live.model == "HL-93" and live.shear_distribution_factor is None and live.shear_by_aashto
     )
     if not (moment_wanted or shear_wanted):
         return job
@@ -243,7 +242,7 @@ def _with_distribution_factor(job: Job, gross: GrossProperties, comp, n_deck: fl
             v_one, v_multi = lever, ll.e_shear_exterior(d_e) * v_multi
     except (ValueError, TypeError) as exc:
         raise InputError(
-            f"inputs within the range of AASHTO LRFD Table 4.6.2.2.2b-1 ({exc})",
+            f"inputs within the range of AASHTO LRFD Tables 4.6.2.2.2b-1 and 4.6.2.2.3a-1 ({exc})",
             file=job.file,
             field=field,
         ) from None
@@ -556,11 +555,6 @@ def zone_at(
     return tuple(zone)
 
 
-def development_length_notes(girder: Girder, losses: LossBreakdown) -> list[str]:
-    """The development length of the strands (AASHTO LRFD 5.9.4.3.2), reported as notes."""
-    return development_lengths(girder, losses)[1]
-
-
 def development_lengths(
     girder: Girder, losses: LossBreakdown
 ) -> tuple[dict[bool, float], list[str]]:
@@ -624,30 +618,42 @@ def development_lengths(
 #: Stress in the bonded reinforcement that carries the tensile force at release, MPa:
 #: 0.5 fy ≤ 30 ksi (AASHTO LRFD 9th Ed. (2020) Table 5.9.2.3.1b-1, from memory), with
 #: fy ≥ 60 ksi.
-RELEASE_STEEL_STRESS_MPA = 30.0 * 6.894757293168361
+RELEASE_STEEL_STRESS_MPA = 30.0 * KSI_MPA
 
 
-def release_tension_steel_notes(girder: Girder, raw, stations: list[StationResult]) -> list[str]:  # type: ignore[no-untyped-def]
-    """Where the girder is in tension at release or handling: the bonded steel it needs.
+def lower_release_tension_limit(f_ci: float) -> float:
+    """AASHTO LRFD 9th Ed. (2020) Table 5.9.2.3.1b-1: tension without bonded steel, MPa.
 
-    AASHTO LRFD 9th Ed. (2020) Table 5.9.2.3.1b-1 (from memory): the higher tension limit
-    (0.24 λ√f'ci) applies only with bonded reinforcement sufficient to resist the tensile
-    force in the concrete computed on an uncracked section, proportioned at 0.5 fy ≤ 30 ksi.
-    The note gives the largest tensile force over the stations and the steel it needs.
+    0.0948 λ√f'ci ≤ 0.2 ksi (λ = 1, normal-weight concrete; from memory).
+    """
+    return min(0.0948 * (f_ci / KSI_MPA) ** 0.5, 0.2) * KSI_MPA
+
+
+def release_tension_steel_notes(girder: Girder, stations: list[StationResult]) -> list[str]:
+    """Where the tension at release or handling needs bonded steel: the steel it needs.
+
+    AASHTO LRFD 9th Ed. (2020) Table 5.9.2.3.1b-1 (from memory): beyond 0.0948 λ√f'ci ≤
+    0.2 ksi, tension up to 0.24 λ√f'ci is allowed only with bonded reinforcement sufficient
+    to resist the tensile force in the concrete computed on an uncracked section,
+    proportioned at 0.5 fy ≤ 30 ksi. The note gives the largest tensile force over the
+    stations where the tension exceeds the lower limit, and the steel it needs.
     """
     from prestress.stages import tensile_force
     from prestress.units import INCH_MM, KIP_N
 
-    limits = girder.job.limits
+    job = girder.job
+    limits = job.limits
     if "AASHTO" not in f"{limits.name} {limits.source}":
         return []  # the rule is AASHTO's; other codes' limit sets say their own
+    assert job.girder_concrete.fci is not None
+    lower = lower_release_tension_limit(job.girder_concrete.fci)
     ext = np.asarray(girder.outline.exterior, dtype=float)
     holes = [np.asarray(h, dtype=float) for h in girder.outline.holes]
     h = girder.gross.height
     best: tuple[float, StationResult] | None = None
     for st in stations:
         fb, ft = st.fibers.get("girder_bottom"), st.fibers.get("girder_top")
-        if fb is None or ft is None or (fb.stress <= 0 and ft.stress <= 0):
+        if fb is None or ft is None or max(fb.stress, ft.stress) <= lower * (1 + 1e-9):
             continue
         force = tensile_force(ext, holes, fb.stress, ft.stress, h)
         # the first of equal forces (symmetric girders) in any unit system: beyond round-off
@@ -658,11 +664,12 @@ def release_tension_steel_notes(girder: Girder, raw, stations: list[StationResul
     force, st = best
     As = force / RELEASE_STEEL_STRESS_MPA
     return [
-        f"tension in the girder at {st.name}: tensile force {force / KIP_N:.1f} kip "
-        f"({force / 1000:.0f} kN) on the uncracked section; bonded reinforcement of at least "
-        f"{As / INCH_MM**2:.2f} in² ({As:.0f} mm²) at 0.5 fy ≤ 30 ksi carries it, which the "
-        "higher tension limit at release requires (AASHTO LRFD 9th Ed. (2020) Table "
-        "5.9.2.3.1b-1, from memory)"
+        f"the tension exceeds 0.0948√f'ci ≤ 0.2 ksi ({lower / KSI_MPA:.3f} ksi, "
+        f"{lower:.2f} MPa) at {st.name}: it is allowed up to 0.24√f'ci only with bonded "
+        f"reinforcement for the tensile force on the uncracked section, {force / KIP_N:.1f} kip "
+        f"({force / 1000:.0f} kN) there, i.e. at least {As / INCH_MM**2:.2f} in² "
+        f"({As:.0f} mm²) at 0.5 fy ≤ 30 ksi (AASHTO LRFD 9th Ed. (2020) Table 5.9.2.3.1b-1, "
+        "from memory)"
     ]
 
 
@@ -681,6 +688,11 @@ def deck_shrinkage_notes(girder: Girder, losses: LossBreakdown) -> list[str]:
         return []
     factor = job.loads.deck_shrinkage
     text = deck_shrinkage_force(girder)[1]
+    if losses.method.startswith("time-step"):
+        text += (
+            f" — by AASHTO 5.4.2.3, not by the {losses.method} model, whose own deck-shrinkage "
+            "gain the losses report"
+        )
     if factor > 0:
         return [f"{text}; applied × {factor:g} in the final service stages"]
     if not any(c.key == "deck_shrinkage_gain" for c in losses.components):
@@ -772,9 +784,16 @@ def run_check(job: Job, *, cli_libraries: tuple[str, ...] = ()) -> CheckResult:
             stage_notes.append(raw.note)
         combo = job.combinations.get(spec.key)
         if combo is not None and combo.source and spec.live > 0:
-            stage_notes.append(f"load factors: {combo.source}")
+            text = f"load factors: {combo.source}"
+            not_aashto = "AASHTO" not in f"{job.limits.name} {job.limits.source}"
+            if not_aashto and combo.source.startswith("AASHTO"):
+                text += (
+                    "; the limit set is not AASHTO's: give its own combination's factors "
+                    f"under [combinations.{spec.key}]"
+                )
+            stage_notes.append(text)
         if spec.strength == "fci":
-            stage_notes += release_tension_steel_notes(girder, raw, st_results)
+            stage_notes += release_tension_steel_notes(girder, st_results)
         if (
             "live" in spec.loads
             and job.loads.live.model == "given"

@@ -241,10 +241,15 @@ def cmd_check(args: argparse.Namespace) -> int:
         stages = None
         if args.stage:
             stages = tuple(k.strip() for k in args.stage.split(",") if k.strip())
-            bad = [k for k in stages if k not in STAGES]
+            bad = [
+                k
+                for k in stages
+                if k not in STAGES
+                and not (k.startswith("handling_") and k.removeprefix("handling_").isdigit())
+            ]
             if bad:
                 raise InputError(
-                    "stage keys among " + ", ".join(STAGES),
+                    "stage keys among " + ", ".join(STAGES) + " (or handling_1, handling_2, …)",
                     file="command line",
                     field="--stage",
                     got=repr(bad[0]),
@@ -396,13 +401,17 @@ def cmd_losses(args: argparse.Namespace) -> int:
     console.print(
         f"[bold]prestress losses[/] — {job.title} ({job.file}); "
         + (
-            f"{len(job.tendons)} tendons of {sum(t.strands for t in job.tendons)} strands"
+            f"{len(job.tendons)} tendons, {sum(t.strands for t in job.tendons)} strands in all"
             if job.post_tensioned
             else f"{job.strand_count} strands"
         )
         + f", Aps {fmt(job.A_ps, system, 'area')} {label(system, 'area')}, fpj "
         f"{fmt(chosen.jacking_stress, system, 'stress')} {label(system, 'stress')}; "
-        f"stresses on {girder.basis} sections"
+        + (
+            "stresses on the section net of the ducts at stressing, gross after grouting"
+            if job.post_tensioned
+            else f"stresses on {girder.basis} sections"
+        )
     )
     if args.compare:
         console.print(view.compare_table(results, job.A_ps, system))

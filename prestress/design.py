@@ -916,7 +916,13 @@ class Evaluator:
     ) -> None:
         from prestress.analysis import _limits_of, resolve_girder
         from prestress.losses import compute_losses
-        from prestress.stages import COMPOSITE_LOADS, applied_stress, moments, stage_specs
+        from prestress.stages import (
+            COMPOSITE_LOADS,
+            applied_stress,
+            deck_shrinkage_stresses,
+            moments,
+            stage_specs,
+        )
 
         t0 = time.perf_counter()
         self.job = job
@@ -994,19 +1000,22 @@ class Evaluator:
                 M_nc = sum((m for k, m in ms[si].items() if k not in COMPOSITE_LOADS), np.zeros(J))
                 M_c = sum((m for k, m in ms[si].items() if k in COMPOSITE_LOADS), np.zeros(J))
                 carrier = comp if comp is not None else sec
+                shrink = deck_shrinkage_stresses(g) if "deck_shrinkage" in spec.loads else {}
                 for fiber in ("girder_bottom", "girder_top"):
                     f = _FIBER_INDEX[fiber]
                     n, c = sec.n_fiber[fiber], sec.c(fiber)
                     self.K0[li, si, f] = n * fp * (-1.0 / sec.area + sec.yb * c / sec.I)
                     self.K1[li, si, f] = -n * fp * c / sec.I
-                    self.F[li, si, :, f] = n * (-M_nc * c / sec.I) + carrier.n_fiber[fiber] * (
-                        -M_c * carrier.c(fiber) / carrier.I
+                    self.F[li, si, :, f] = (
+                        n * (-M_nc * c / sec.I)
+                        + carrier.n_fiber[fiber] * (-M_c * carrier.c(fiber) / carrier.I)
+                        + shrink.get(fiber, 0.0)
                     )
                     self.has_fiber[si, f] = True
                 if comp is not None and any(k in COMPOSITE_LOADS for k in spec.loads):
                     self.F[li, si, :, 2] = comp.n_fiber["deck_top"] * (
                         -M_c * comp.c("deck_top") / comp.I
-                    )
+                    ) + shrink.get("deck_top", 0.0)
                     self.has_fiber[si, 2] = True
 
         # limits: reciprocal of each limit (0: none of that sign), zero-limit flags

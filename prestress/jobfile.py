@@ -37,7 +37,7 @@ from prestress.model import (
     Times,
 )
 from prestress.tomlread import Table, read_toml
-from prestress.units import INCH_MM, KSI_MPA, to_internal
+from prestress.units import FOOT_MM, INCH_MM, KIP_N, KSI_MPA, LBF_N, to_internal
 
 #: Loss methods the job may choose (see ``prestress.losses``).
 LOSS_METHODS = tuple(METHOD_MODULES)
@@ -62,15 +62,18 @@ def _concrete(t: Table, name: str, *, at_transfer: bool) -> Concrete:
     fci = None
     if at_transfer:
         fci = t.quantity("fci", "stress", positive=True)
+        if not lo <= fci <= hi:  # the range first: "5500 ksi" is a unit mistake, not f'ci > f'c
+            raise t.error(
+                "fci",
+                f"a concrete strength from {lo / KSI_MPA:.1f} to {hi / KSI_MPA:.0f} ksi "
+                f"({lo:.0f} to {hi:.0f} MPa)",
+                f"{fci / KSI_MPA:.3g} ksi",
+            )
         if fci > fc:
             raise t.error(
                 "fci",
                 f"f'ci no greater than f'c ({fc / KSI_MPA:.3g} ksi)",
                 f"{fci / KSI_MPA:.3g} ksi",
-            )
-        if fci < lo:
-            raise t.error(
-                "fci", f"a concrete strength of at least {lo:.0f} MPa", f"{fci / KSI_MPA:.3g} ksi"
             )
     w = t.quantity("unit_weight", "unit_weight", positive=True)
     w_mod_given = t.has("modulus_unit_weight")
@@ -101,13 +104,17 @@ def _concrete(t: Table, name: str, *, at_transfer: bool) -> Concrete:
                 ) from None
             raise t.error("modulus", f"inputs within the formula's range ({exc})") from None
         source = MODULUS_FORMULAS[formula]
-        if not w_mod_given and w > PLAIN_CONCRETE_MAX:
+        if formula in ("aashto", "aci318"):
+            w_pcf = w_mod * FOOT_MM**3 / LBF_N
+            source += f", wc = {w_pcf:.1f} pcf ({w_mod * 1e6:.2f} kN/m³)"
+            source += f", K1 = {K1:g}" if formula == "aashto" else ""
+        if formula in ("aashto", "aci318") and not w_mod_given and w > plain_concrete_weight(fc):
             note = (
                 f"the {name} modulus uses the dead-load unit weight "
-                f"{w * 304.8**3 / 4.4482216152605:.0f} pcf; the modulus formulas take the "
-                "weight of the concrete itself (AASHTO LRFD Table 3.5.1-1: 0.145 kcf up to 5 ksi, "
-                "0.140 + 0.001 f'c kcf from 5 to 15 ksi, reinforcement adding 0.005 kcf for dead "
-                f"load; from memory): give {t.field('modulus_unit_weight')} to set it"
+                f"{w * FOOT_MM**3 / LBF_N:.0f} pcf ({w * 1e6:.2f} kN/m³); the modulus formula "
+                "takes the weight of the concrete itself (AASHTO LRFD Table 3.5.1-1: 0.145 kcf up "
+                "to 5 ksi, 0.140 + 0.001 f'c kcf from 5 to 15 ksi, reinforcement adding 0.005 "
+                f"kcf for dead load; from memory): give {t.field('modulus_unit_weight')} to set it"
             )
     else:
         try:
@@ -147,9 +154,16 @@ def _concrete(t: Table, name: str, *, at_transfer: bool) -> Concrete:
     )
 
 
-#: Above this unit weight (0.1475 kcf, N/mm³) a unit weight looks like one of reinforced
-#: concrete for dead load rather than of the concrete itself (common practice).
-PLAIN_CONCRETE_MAX = 0.1475 * 4.4482216152605 / 304.8**3
+def plain_concrete_weight(fc: float) -> float:
+    """Unit weight above which a weight looks like reinforced concrete for dead load (N/mm³).
+
+    AASHTO LRFD 9th Ed. (2020) Table 3.5.1-1 (from memory): plain normal-weight concrete
+    0.145 kcf up to 5 ksi, 0.140 + 0.001 f'c kcf from 5 to 15 ksi; half the 0.005 kcf that
+    reinforcement adds is allowed before a remark.
+    """
+    f_ksi = fc / KSI_MPA
+    kcf = 0.145 if f_ksi <= 5.0 else 0.140 + 0.001 * min(f_ksi, 15.0)
+    return (kcf + 0.0025) * KIP_N / FOOT_MM**3
 
 
 def _strand(t: Table) -> Strand:
@@ -308,6 +322,7 @@ def _live(t: Table | None) -> LiveLoad:
                 repr(raw),
             )
         shear_df, shear_source = _shear_distribution(t, df is None)
+        shear_by_aashto = shear_df is None and bool(shear_source)
         t.string("note", "")
         t.done()
         return LiveLoad(
@@ -322,6 +337,7 @@ def _live(t: Table | None) -> LiveLoad:
             curb_distance=curb,
             shear_distribution_factor=shear_df,
             shear_distribution_source=shear_source,
+            shear_by_aashto=shear_by_aashto,
         )
     if t.has("moments"):
         raw = t.raw("moments")
@@ -363,9 +379,18 @@ def service_iii_default(method: str, basis: str) -> Combination:
     return Combination(
         1.0,
         0.8,
-        "AASHTO LRFD 9th Ed. (2020) Tables 3.4.1-1 and 3.4.1-4: γLL = 0.8 without the "
-        "refined estimate used with elastic gains (from memory)",
+        "AASHTO LRFD 9th Ed. (2020) Tables 3.4.1-1 and 3.4.1-4: γLL = 0.8 (1.0 applies only "
+        "to the refined estimate used with elastic gains, on transformed sections; not the "
+        "case here) (from memory)",
     )
+
+
+def _deck_shrinkage(ld: Table, *, has_deck: bool) -> float:
+    """``deck_shrinkage``: the factor on the deck's shrinkage restraint force (needs a deck)."""
+    factor = ld.number("deck_shrinkage", 0.0, low=0.0, high=2.0)
+    if factor > 0 and not has_deck:
+        raise ld.error("deck_shrinkage", "a [deck] for the deck's shrinkage to act on", "no deck")
+    return factor
 
 
 def _dynamic_factors(hd: Table) -> tuple[float, ...]:
@@ -438,6 +463,12 @@ def _percent(t: Table, key: str) -> float:
         value = 100.0 * to_internal(raw, "dimensionless", field=t.field(key), file=t.file)
     if not 0.0 <= value <= 100.0:
         raise t.error(key, "a relative humidity from 0 to 100 percent", f"{value:g}")
+    if isinstance(raw, int | float) and 0.0 < value <= 1.0:
+        raise t.error(
+            key,
+            'a relative humidity in percent, e.g. 70 (or "0.7" with a unit: "70 percent")',
+            f"{value:g}: a fraction? {100 * value:g} % was probably meant",
+        )
     return value
 
 
@@ -928,7 +959,7 @@ def load_job(path: str | Path) -> Job:
             ),
             live=_live(ld.table("live", required=False)),
             diaphragms=_diaphragms(ld, span),
-            deck_shrinkage=ld.number("deck_shrinkage", 0.0, low=0.0, high=2.0),
+            deck_shrinkage=_deck_shrinkage(ld, has_deck=top.has("deck")),
         )
         ld.done()
 
@@ -993,10 +1024,14 @@ def load_job(path: str | Path) -> Job:
         for key in ("service_i", "service_iii"):
             c = cb.table(key, required=False)
             if c is not None:
+                given_live = c.has("live")
+                live = c.number("live", combos[key].live, low=0, high=5)
                 combos[key] = Combination(
                     dead=c.number("dead", combos[key].dead, low=0, high=5),
-                    live=c.number("live", combos[key].live, low=0, high=5),
-                    source="given in the job",
+                    live=live,
+                    source="given in the job"
+                    if given_live
+                    else f"dead given in the job; live: {combos[key].source}",
                 )
                 c.done()
         cb.done()

@@ -169,7 +169,7 @@ class LiveLoad:
         distribution_source: where the factor comes from.
         impact: dynamic load allowance IM on truck and tandem (HL-93).
         shear_distribution_factor: live-load distribution factor for shear (HL-93), lanes per
-            girder; None where it is neither given nor asked for ("aashto").
+            girder; None where it is neither given nor computed yet.
         shear_distribution_source: where the shear factor comes from.
     """
 
@@ -184,6 +184,7 @@ class LiveLoad:
     curb_distance: float | None = None  # d_e, exterior web to the curb's inner face, mm
     shear_distribution_factor: float | None = None
     shear_distribution_source: str = ""
+    shear_by_aashto: bool = False  # compute the shear factor by AASHTO 4.6.2.2.3
 
     def moment_at(self, x_from_bearing: np.ndarray, span: float) -> np.ndarray:
         """Live-load moment per girder at positions measured from the left bearing (N*mm)."""
@@ -258,11 +259,6 @@ class Handling:
 
     lift_point: float
     dynamic_factors: tuple[float, ...] = (1.0,)
-
-    @property
-    def dynamic_factor(self) -> float:
-        """The first dynamic factor (the only one in most jobs)."""
-        return self.dynamic_factors[0]
 
 
 @dataclass(frozen=True)

@@ -369,14 +369,12 @@ def stage_stresses(
     girder: Girder, losses: LossBreakdown, spec: StageSpec, all_stations: list[Station]
 ) -> StageStresses:
     """Fiber stresses of one stage at its stations (vectorised over the stations)."""
-    job = girder.job
     sts = span_stations(girder, all_stations) if spec.support == "bearings" else list(all_stations)
     x = np.array([s.x for s in sts])
     sec = girder.section_transfer if spec.prestress == "transfer" else girder.section_service
     assert sec is not None
     comp = girder.section_composite
     P, cgs, note = prestress_at(girder, losses, spec.prestress, x)
-    on_span = (x >= job.bearing_offset - 1.0) & (x <= job.length - job.bearing_offset + 1.0)
     e = sec.yb - cgs
     ms = moments(girder, spec, x)
     M_nc = sum((m for k, m in ms.items() if k not in COMPOSITE_LOADS), np.zeros_like(x))
@@ -389,12 +387,12 @@ def stage_stresses(
             if comp is None or not composite_stage:
                 continue
             f_deck = comp.n_fiber[fiber] * (-M_c * comp.c(fiber) / comp.I)
-            stresses[fiber] = f_deck + shrink.get(fiber, 0.0) * on_span
+            stresses[fiber] = f_deck + shrink.get(fiber, 0.0)
             continue
         f = sec.n_fiber[fiber] * (-P / sec.area - (M_nc - P * e) * sec.c(fiber) / sec.I)
         carrier = comp if comp is not None else sec
         f = f + carrier.n_fiber[fiber] * (-M_c * carrier.c(fiber) / carrier.I)
-        stresses[fiber] = f + shrink.get(fiber, 0.0) * on_span
+        stresses[fiber] = f + shrink.get(fiber, 0.0)
     return StageStresses(spec, sts, x, P, cgs, e, ms, stresses, sec, comp, note)
 
 
@@ -586,8 +584,8 @@ def zone_bounds(
                 # feasible side: for compression f ≥ comp; for tension f ≤ tens
                 upper_bound_on_e = (k < 0) if is_comp else (k > 0)
                 short = STAGE_SHORT.get(r.spec.limit_stage, r.spec.limit_stage)
-                if r.spec.title == "Post-tensioning":
-                    short = "stressing"
+                if r.spec.key == "transfer" and r.section.name.startswith("net"):
+                    short = "stressing"  # post-tensioning, on the section net of the ducts
                 if r.spec.key != r.spec.limit_stage:  # one of several handling cases
                     short += f" ×{r.spec.dead:g}"
                 tag = (

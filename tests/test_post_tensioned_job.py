@@ -192,17 +192,18 @@ def test_tendon_stress_limits_warn_for_218_ksi(tmp_path: Path) -> None:
     left = st1.after_set[0] / KSI
     assert left > 189.0
     assert any(
-        f"tendon T1: {left:.1f} ksi at the left anchorage exceeds 0.70 fpu = 189.0 ksi" in w
+        f"tendon T1: {left:.1f} ksi ({left * KSI:,.1f} MPa) at the left anchorage exceeds "
+        "0.70 fpu = 189.0 ksi (1,303.1 MPa)" in w
         for w in warnings
     )
     assert any("T1" in w and "exceeds 0.74 fpu = 199.8 ksi" in w for w in warnings)
     assert any("right anchorage (dead end)" in w for w in warnings)
     assert not any("0.90 fpy" in w for w in warnings)  # allowed before seating
-    # the same job in SI units: the values in MPa (0.70 fpu = 0.70 × 1861.6 = 1303.1 MPa)
+    # the same job in SI units: the values in MPa first (0.70 fpu = 0.70 × 1861.6 = 1303.1
+    # MPa), then in ksi (notes are written before --units may change the output units)
     si = _write(tmp_path, text.replace('units = "US"', 'units = "SI"'), "si.toml")
     notes = [n for n in run_check(load_job(si)).notes if n.startswith("warning: tendon")]
-    assert any("0.70 fpu = 1303.1 MPa" in n for n in notes)
-    assert not any("ksi" in n for n in notes)
+    assert any("0.70 fpu = 1,303.1 MPa (189.0 ksi)" in n for n in notes)
 
 
 def test_example_meets_the_tendon_stress_limits() -> None:

@@ -30,7 +30,7 @@ if TYPE_CHECKING:
     from prestress.analysis import Girder
     from prestress.model import Tendon
 
-_KSI = 6.894757293168361  # MPa per ksi (exact from the definitions of the pound and inch)
+from prestress.units import KSI_MPA as _KSI  # MPa per ksi
 
 
 @dataclass(frozen=True)
@@ -252,16 +252,27 @@ def tendon_limit_checks(
     return out
 
 
-def _stress_text(v: float, system: str) -> str:
+def _both(v: float, system: str, role: str, digits: int = 1) -> str:
+    """A value in the job's output units, then in the other system's in parentheses.
+
+    Notes are written before the output units are known (``--units`` may change them), so
+    they carry both.
+    """
     from prestress.units import from_internal, out_unit
 
-    return f"{from_internal(v, system, 'stress'):.1f} {out_unit(system, 'stress').label}"
+    other = "SI" if system == "US" else "US"
+    return (
+        f"{from_internal(v, system, role):,.{digits}f} {out_unit(system, role).label} "
+        f"({from_internal(v, other, role):,.{digits}f} {out_unit(other, role).label})"
+    )
+
+
+def _stress_text(v: float, system: str) -> str:
+    return _both(v, system, "stress")
 
 
 def _position_text(x: float, system: str) -> str:
-    from prestress.units import from_internal, out_unit
-
-    return f"{from_internal(x, system, 'position'):.1f} {out_unit(system, 'position').label}"
+    return _both(x, system, "position")
 
 
 def limit_notes(checks: list[TendonLimitCheck], system: str) -> list[str]:
@@ -305,7 +316,7 @@ def duct_notes(girder: Girder) -> list[str]:
     area is under 2.0 times the strand area certainly fails the rule (from memory) and is
     reported; one that passes on the outside diameter must still be checked on the inside one.
     """
-    from prestress.units import INCH_MM, out_unit
+    from prestress.units import INCH_MM
 
     job = girder.job
     system = job.units
@@ -315,12 +326,11 @@ def duct_notes(girder: Girder) -> list[str]:
             continue
         ratio, ok = pt.duct_area_ratio_ok(t.duct_diameter / INCH_MM, t.area / INCH_MM**2)
         if not ok:
-            unit = out_unit(system, "area")
-            a_duct = math.pi * t.duct_diameter**2 / 4.0 / unit.factor
+            a_duct = math.pi * t.duct_diameter**2 / 4.0
             out.append(
                 f"warning: tendon {t.name}: the duct area from its outside diameter, "
-                f"{a_duct:.2f} {unit.label}, is only {ratio:.2f} times the strand area "
-                f"{t.area / unit.factor:.3f} {unit.label}; AASHTO LRFD 9th Ed. (2020) 5.4.6.2 "
+                f"{_both(a_duct, system, 'area', 2)}, is only {ratio:.2f} times the strand area "
+                f"{_both(t.area, system, 'area', 3)}; AASHTO LRFD 9th Ed. (2020) 5.4.6.2 "
                 f"asks for an inside area of at least {pt.DUCT_AREA_RATIO_MIN:g} times it "
                 "(2.5 for the pull-through method; from memory)"
             )

@@ -176,7 +176,12 @@ def analyse(girder: Girder, model_name: str, n_steps: int = 120):
             field="losses.method",
         )
     if job.layout is None:
-        raise InputError("strand rows", file=job.file, field="strands")
+        raise InputError(
+            "a pretensioned girder with strand rows (the time-step method here is for "
+            'pretensioned girders; post-tensioned girders: method = "given")',
+            file=job.file,
+            field="strands",
+        )
     g, deck = girder.gross, job.deck
     t = job.times
     girder_model, deck_model = concrete_models(girder, model_name)

@@ -44,12 +44,15 @@ def fmt(v: float | None, system: str, role: str, digits: int = 3) -> str:
         return "0"
     if mag >= 1e9:
         return f"{x:.4g}"
-    # decimals by magnitude, judged on the number as it will be printed (99.996 prints as
-    # "100.0", not "100.00")
+    # decimals by magnitude, never more for a larger number, judged on the number as it will
+    # be printed (99.996 prints as "100.0", not "100.00"); a true minus sign
+    text = f"{x:.{digits}f}"
     for threshold, decimals in ((1000, 0), (100, 1), (10, 2)):
+        decimals = min(decimals, digits)
         if abs(round(x, decimals)) >= threshold:
-            return f"{x:,.0f}" if decimals == 0 else f"{x:.{decimals}f}"
-    return f"{x:.{digits}f}"
+            text = f"{x:,.0f}" if decimals == 0 else f"{x:,.{decimals}f}"
+            break
+    return text.replace("-", "−")
 
 
 def signed(v: float, system: str, role: str, digits: int = 3) -> str:
@@ -95,7 +98,26 @@ def live_load_text(result: CheckResult) -> str:
         return text
     if live.moments_tenth_points is not None:
         return "moments at the tenth points given in the job (with impact and distribution)"
+    if not live.moment_midspan:
+        return "none in the job"
     return (
         "midspan moment given in the job (with impact and distribution), distributed along "
         "the span as a parabola"
     )
+
+
+def loads_caption(result: CheckResult) -> str:
+    """Which section carries which load, for the caption of a loads table."""
+    if result.girder.composite_section is None:
+        return "Every load on the girder alone (no deck), the girder weight on its bearings."
+    return (
+        "Girder weight on the bearings; deck, haunch and diaphragms on the girder alone; "
+        "barriers, wearing surface and live load on the composite section."
+    )
+
+
+def loads_title(result: CheckResult) -> str:
+    """The title of a loads table: shears only where the live load gives them."""
+    le = result.loads
+    shear = le is not None and le.shear_live is not None
+    return ("Moments and shears" if shear else "Moments") + " per girder, unfactored"

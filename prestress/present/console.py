@@ -19,6 +19,8 @@ from prestress.present.common import (
     fmt,
     label,
     live_load_text,
+    loads_caption,
+    loads_title,
     signed,
 )
 
@@ -139,6 +141,7 @@ def properties(result: CheckResult, system: str) -> Table:
         title_justify="left",
         title_style="bold",
         box=box.SIMPLE_HEAD,
+        collapse_padding=True,
         caption="Composite: deck transformed into girder concrete by n; "
         "V/S with every outer face exposed.",
         caption_justify="left",
@@ -184,7 +187,8 @@ def losses(result: CheckResult, system: str) -> Table:
         title_justify="left",
         title_style="bold",
         box=box.SIMPLE_HEAD,
-        caption=L.title,
+        collapse_padding=True,
+        caption=f"Losses positive, gains negative. {L.title}",
         caption_justify="left",
     )
     t.add_column("Mechanism")
@@ -234,6 +238,17 @@ def losses(result: CheckResult, system: str) -> Table:
     return t
 
 
+#: Short column titles of the loads table (the caption explains them).
+LOAD_SHORT = {
+    "girder": "Girder",
+    "deck": "Deck",
+    "diaphragms": "Diaphr.",
+    "barriers": "DC",
+    "wearing_surface": "DW",
+    "live": "LL+IM",
+}
+
+
 def loads_table(
     result: CheckResult, system: str, stations: tuple[str, ...] | None = None
 ) -> Group | None:
@@ -243,26 +258,31 @@ def loads_table(
         return None
     keys = [k for k in LOAD_TITLES if k in le.moments and le.moments[k].any()]
     mu, fu = label(system, "moment"), label(system, "force")
+    shear = (
+        f" V: {fu}, + where the girder left of the section is pushed up."
+        if le.shear_live is not None
+        else ""
+    )
     t = Table(
-        title="Moments and shears per girder, unfactored",
+        title=loads_title(result),
         title_justify="left",
         title_style="bold",
         box=box.SIMPLE_HEAD,
+        collapse_padding=True,
         caption=(
-            f"x in {label(system, 'position')} from the left bearing; moments in {mu}, "
-            f"sagging +; V in {fu}, + where the girder left of the section is pushed up. "
-            "Girder weight on the bearings; deck, haunch and diaphragms on the girder alone; "
-            "barriers, wearing surface and live load on the composite section."
+            f"x: {label(system, 'position')} from the left bearing. Moments: {mu}, sagging +."
+            f"{shear} Deck: deck and haunch; DC: barriers and other superimposed dead load; "
+            f"DW: wearing surface. {loads_caption(result)}"
         ),
         caption_justify="left",
     )
-    t.add_column("Station", no_wrap=True)
+    t.add_column("Station", overflow="fold", min_width=8)
     t.add_column("x", justify="right", no_wrap=True)
     for k in keys:
-        t.add_column(LOAD_TITLES[k], justify="right", no_wrap=True)
+        t.add_column(LOAD_SHORT[k], justify="right", no_wrap=True)
     if le.shear_live is not None:
-        t.add_column("V LL+IM max", justify="right", no_wrap=True)
-        t.add_column("V LL+IM min", justify="right", no_wrap=True)
+        t.add_column("V max", justify="right", no_wrap=True)
+        t.add_column("V min", justify="right", no_wrap=True)
     a = result.girder.job.bearing_offset
     for i, st in enumerate(le.stations):
         if stations is not None and not any(w.lower() in st.name.lower() for w in stations):
@@ -297,19 +317,20 @@ def stage_table(stage: StageResult, number: int, system: str) -> Group:
     is_service = any(s.x_bearing is not None for s in stage.stations)
     origin = "the left bearing" if is_service else "the left girder end"
     units = (
-        f"x in {label(system, 'position')} from {origin}; P in {label(system, 'force')}; "
-        f"e in {label(system, 'dimension')} below the girder centroid; M in "
-        f"{label(system, 'moment')}; stresses in {su}, {SIGN_CONVENTION}."
+        f"x: {label(system, 'position')} from {origin}; P: {label(system, 'force')}; "
+        f"e: {label(system, 'dimension')} below the girder centroid; M: "
+        f"{label(system, 'moment')}; stresses: {su}, {SIGN_CONVENTION}."
     )
     t = Table(
         title=f"Stage {number} — {stage.title}" + ("" if stage.ok else "  [bold red]EXCEEDED[/]"),
         title_justify="left",
         title_style="bold",
         box=box.SIMPLE_HEAD,
+        collapse_padding=True,
         caption=units,
         caption_justify="left",
     )
-    t.add_column("Station", no_wrap=True)
+    t.add_column("Station", overflow="fold", min_width=8)
     for col in ("x", "P", "e", "M"):
         t.add_column(col, justify="right", no_wrap=True)
     for f in fibers:
@@ -359,6 +380,7 @@ def summary(result: CheckResult) -> Table:
         title_justify="left",
         title_style="bold",
         box=box.SIMPLE_HEAD,
+        collapse_padding=True,
     )
     t.add_column("Stage")
     t.add_column("Fiber")

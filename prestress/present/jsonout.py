@@ -76,12 +76,8 @@ def _loads(result: CheckResult, system: str) -> dict[str, Any] | None:
                 "moments": {
                     k: quantity(float(v[i]), system, "moment") for k, v in le.moments.items()
                 },
-                "shear_live_max": None
-                if shear is None
-                else quantity(float(shear[0][i]), system, "force"),
-                "shear_live_min": None
-                if shear is None
-                else quantity(float(shear[1][i]), system, "force"),
+                "shear_live_max": _shear(shear, 0, i, system),
+                "shear_live_min": _shear(shear, 1, i, system),
             }
             for i, st in enumerate(le.stations)
         ],

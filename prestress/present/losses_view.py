@@ -22,6 +22,7 @@ MECHANISMS = {
     "deck_shrinkage_gain": "Deck shrinkage (gain)",
     "deck_creep": "Creep of the deck",
     "elastic_gain": "Elastic gain from later loads",
+    "long_term": "Time-dependent losses (given)",
 }
 
 #: What the comparison adds to the name of a mechanism that is reported but not in the total.
@@ -129,9 +130,10 @@ def compare_table(results: list[LossBreakdown], A_ps: float, system: str) -> Tab
         t.add_column("\n".join(b.method.rsplit("-", 1)), justify="right", no_wrap=True)
     sums = [by_mechanism(b) for b in results]
     keys = [k for k in MECHANISMS if any(k in s for s in sums)]
+    keys += sorted({k for s in sums for k in s} - set(MECHANISMS))  # none left out of the rows
     for k in keys:
         comps = [c for b in results for c in b.components if mechanism(c) == k]
-        name = MECHANISMS[k] + ("" if in_total(comps) else NOT_IN_TOTAL)
+        name = MECHANISMS.get(k, comps[0].label) + ("" if in_total(comps) else NOT_IN_TOTAL)
         t.add_row(name, *[fmt(s[k], system, "stress", 2) if k in s else "—" for s in sums])
     t.add_section()
     t.add_row(

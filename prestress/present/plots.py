@@ -763,6 +763,9 @@ def magnel_lines(result: CheckResult, station: str | None = None) -> MagnelSetup
         },
     }
     M_i = st.moment
+    from prestress.stages import deck_shrinkage_stresses
+
+    shrink = deck_shrinkage_stresses(g)  # {} unless the job applies it (final stages)
     for stage in result.stages:
         if stage.key not in wanted:
             continue
@@ -781,11 +784,13 @@ def magnel_lines(result: CheckResult, station: str | None = None) -> MagnelSetup
                 continue
             M = M_nc + M_c * ratio[fiber]
             s = s_of[fiber]
+            # a stress that does not depend on the prestress (deck shrinkage) uses up the limit
+            lim_free = lim - (shrink.get(fiber, 0.0) if stage.key in _SERVICE_STAGES else 0.0)
             # f = R Pi (−1/A + e s) − M s; divided by Pi:  R(−1/A + e s) − M s u  vs  lim u
             if sense == "tension":  # R(−1/A + e s) − (lim + M s) u ≤ 0
-                a, b, c = -R / A, R * s, -(lim + M * s)
+                a, b, c = -R / A, R * s, -(lim_free + M * s)
             else:  # (lim + M s) u − R(−1/A + e s) ≤ 0
-                a, b, c = R / A, -R * s, lim + M * s
+                a, b, c = R / A, -R * s, lim_free + M * s
             where = FIBER_NAMES[fiber].replace("girder ", "")
             lines.append(
                 MagnelLine(
