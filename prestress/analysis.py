@@ -446,6 +446,7 @@ class CheckResult:
     notes: tuple[str, ...] = field(default_factory=tuple)
     zone: tuple[ZoneStation, ...] = ()
     loads: LoadEffects | None = None
+    conditions: tuple[str, ...] = ()  # what a pass presupposes (bonded steel, left-out stresses)
 
     @property
     def ok(self) -> bool:
@@ -629,14 +630,82 @@ def lower_release_tension_limit(f_ci: float) -> float:
     return min(0.0948 * (f_ci / KSI_MPA) ** 0.5, 0.2) * KSI_MPA
 
 
-def release_tension_steel_notes(girder: Girder, stations: list[StationResult]) -> list[str]:
-    """Where the tension at release or handling needs bonded steel: the steel it needs.
+def station_results(girder: Girder, spec, raw) -> list[StationResult]:  # type: ignore[no-untyped-def]
+    """The stresses of one stage checked against the limits, station by station."""
+    job = girder.job
+    gc = job.girder_concrete
+    strength = gc.fci if spec.strength == "fci" else gc.fc
+    sym = "f'ci" if spec.strength == "fci" else "f'c"
+    assert strength is not None
+    out = []
+    for i, st in enumerate(raw.stations):
+        fibers = {}
+        for fiber, f in raw.stresses.items():
+            limit = job.limits.get(spec.limit_stage, fiber)
+            if fiber == "deck_top":
+                assert job.deck is not None
+                fibers[fiber] = check_fiber(float(f[i]), limit, job.deck.concrete.fc, "f'c,deck")
+            else:
+                fibers[fiber] = check_fiber(float(f[i]), limit, strength, sym)
+        out.append(
+            StationResult(
+                name=st.name,
+                x=st.x,
+                x_bearing=st.x - job.bearing_offset if spec.support == "bearings" else None,
+                force=float(raw.force[i]),
+                eccentricity=float(raw.eccentricity[i]),
+                moments={k: float(v[i]) for k, v in raw.moments.items()},
+                fibers=fibers,
+                cgs=float(raw.cgs[i]),
+            )
+        )
+    return out
+
+
+def deck_shrinkage_left_out(girder: Girder, losses: LossBreakdown, all_stations) -> str:  # type: ignore[no-untyped-def]
+    """What the final stages would give with the deck-shrinkage stresses ("" if not left out).
+
+    Only where the losses credit the prestress gain from deck shrinkage and the job does not
+    apply the stresses (``[loads] deck_shrinkage = 0``): the highest utilisation of the final
+    service stages with them applied in full, as a condition of the verdict.
+    """
+    from dataclasses import replace
+
+    from prestress.stages import stage_specs, stage_stresses
+
+    job = girder.job
+    if job.deck is None or job.loads.deck_shrinkage > 0:
+        return ""
+    if not any(c.key == "deck_shrinkage_gain" for c in losses.components):
+        return ""
+    one = replace(girder, job=replace(job, loads=replace(job.loads, deck_shrinkage=1.0)))
+    best: tuple[float, str, str, str] | None = None
+    for spec in stage_specs(one):
+        if "deck_shrinkage" not in spec.loads:
+            continue
+        for st in station_results(one, spec, stage_stresses(one, losses, spec, all_stations)):
+            g = st.governing()
+            if g is not None and (best is None or g[1] > best[0] * (1 + 1e-9) + 1e-12):
+                best = (g[1], spec.title, g[0], st.name)
+    if best is None:
+        return ""
+    use, title, fiber, where = best
+    verdict = "still within the limits" if use <= 1.0 + 1e-12 else "EXCEEDED"
+    return (
+        "the deck-shrinkage stresses left out (with them: highest utilisation "
+        f"{use:.2f}, {title}, {fiber.replace('_', ' ')} at {where}: {verdict})"
+    )
+
+
+def release_tension_steel(girder: Girder, stations: list[StationResult]) -> tuple[str, str] | None:
+    """Where the tension at release or handling needs bonded steel: (note, condition) or None.
 
     AASHTO LRFD 9th Ed. (2020) Table 5.9.2.3.1b-1 (from memory): beyond 0.0948 λ√f'ci ≤
     0.2 ksi, tension up to 0.24 λ√f'ci is allowed only with bonded reinforcement sufficient
     to resist the tensile force in the concrete computed on an uncracked section,
     proportioned at 0.5 fy ≤ 30 ksi. The note gives the largest tensile force over the
-    stations where the tension exceeds the lower limit, and the steel it needs.
+    stations where the tension exceeds the lower limit, and the steel it needs; the
+    condition says what a pass presupposes.
     """
     from prestress.stages import tensile_force
     from prestress.units import INCH_MM, KIP_N
@@ -644,7 +713,7 @@ def release_tension_steel_notes(girder: Girder, stations: list[StationResult]) -
     job = girder.job
     limits = job.limits
     if "AASHTO" not in f"{limits.name} {limits.source}":
-        return []  # the rule is AASHTO's; other codes' limit sets say their own
+        return None  # the rule is AASHTO's; other codes' limit sets say their own
     assert job.girder_concrete.fci is not None
     lower = lower_release_tension_limit(job.girder_concrete.fci)
     ext = np.asarray(girder.outline.exterior, dtype=float)
@@ -660,17 +729,18 @@ def release_tension_steel_notes(girder: Girder, stations: list[StationResult]) -
         if best is None or force > best[0] * (1.0 + 1e-9) + 1e-6:
             best = (force, st)
     if best is None or best[0] <= 0.0:
-        return []
+        return None
     force, st = best
     As = force / RELEASE_STEEL_STRESS_MPA
-    return [
+    steel = f"{As / INCH_MM**2:.2f} in² ({As:.0f} mm²)"
+    note = (
         f"the tension exceeds 0.0948√f'ci ≤ 0.2 ksi ({lower / KSI_MPA:.3f} ksi, "
         f"{lower:.2f} MPa) at {st.name}: it is allowed up to 0.24√f'ci only with bonded "
         f"reinforcement for the tensile force on the uncracked section, {force / KIP_N:.1f} kip "
-        f"({force / 1000:.0f} kN) there, i.e. at least {As / INCH_MM**2:.2f} in² "
-        f"({As:.0f} mm²) at 0.5 fy ≤ 30 ksi (AASHTO LRFD 9th Ed. (2020) Table 5.9.2.3.1b-1, "
-        "from memory)"
-    ]
+        f"({force / 1000:.0f} kN) there, i.e. at least {steel} at 0.5 fy ≤ 30 ksi (AASHTO LRFD "
+        "9th Ed. (2020) Table 5.9.2.3.1b-1, from memory)"
+    )
+    return note, f"bonded reinforcement of at least {steel} in the tension zone at {st.name}"
 
 
 def deck_shrinkage_notes(girder: Girder, losses: LossBreakdown) -> list[str]:
@@ -745,40 +815,14 @@ def run_check(job: Job, *, cli_libraries: tuple[str, ...] = ()) -> CheckResult:
     results = []
     notes = list(girder.notices + losses.notes)
     raws = []
+    conditions: list[str] = []
     for spec in stage_specs(girder):
         raw = stage_stresses(girder, losses, spec, all_st)
         raws.append(raw)
-        strength = gc.fci if spec.strength == "fci" else gc.fc
         sym = "f'ci" if spec.strength == "fci" else "f'c"
+        strength = gc.fci if spec.strength == "fci" else gc.fc
         assert strength is not None
-        st_results = []
-        for i, st in enumerate(raw.stations):
-            fibers = {}
-            for fiber, f in raw.stresses.items():
-                if fiber == "deck_top":
-                    assert job.deck is not None
-                    fibers[fiber] = check_fiber(
-                        float(f[i]),
-                        job.limits.get(spec.limit_stage, fiber),
-                        job.deck.concrete.fc,
-                        "f'c,deck",
-                    )
-                else:
-                    fibers[fiber] = check_fiber(
-                        float(f[i]), job.limits.get(spec.limit_stage, fiber), strength, sym
-                    )
-            st_results.append(
-                StationResult(
-                    name=st.name,
-                    x=st.x,
-                    x_bearing=st.x - job.bearing_offset if spec.support == "bearings" else None,
-                    force=float(raw.force[i]),
-                    eccentricity=float(raw.eccentricity[i]),
-                    moments={k: float(v[i]) for k, v in raw.moments.items()},
-                    fibers=fibers,
-                    cgs=float(raw.cgs[i]),
-                )
-            )
+        st_results = station_results(girder, spec, raw)
         stage_notes = []
         if raw.note:
             stage_notes.append(raw.note)
@@ -793,7 +837,10 @@ def run_check(job: Job, *, cli_libraries: tuple[str, ...] = ()) -> CheckResult:
                 )
             stage_notes.append(text)
         if spec.strength == "fci":
-            stage_notes += release_tension_steel_notes(girder, st_results)
+            steel = release_tension_steel(girder, st_results)
+            if steel is not None:
+                stage_notes.append(steel[0])
+                conditions.append(f"{steel[1]} ({spec.title})")
         if (
             "live" in spec.loads
             and job.loads.live.model == "given"
@@ -823,6 +870,9 @@ def run_check(job: Job, *, cli_libraries: tuple[str, ...] = ()) -> CheckResult:
         )
     zone = zone_at(girder, losses, all_st, raws)
     notes += deck_shrinkage_notes(girder, losses)
+    left_out = deck_shrinkage_left_out(girder, losses, all_st)
+    if left_out:
+        conditions.append(left_out)
     lds, ld_notes = development_lengths(girder, losses)
     notes += ld_notes
     if job.layout is not None:
@@ -847,6 +897,7 @@ def run_check(job: Job, *, cli_libraries: tuple[str, ...] = ()) -> CheckResult:
         notes=tuple(notes),
         zone=tuple(zone),
         loads=load_effects(girder, all_st),
+        conditions=tuple(conditions),
     )
 
 

@@ -98,3 +98,29 @@ def test_bad_factor(tmp_path: Path, line: str) -> None:
     with pytest.raises(InputError) as info:
         load_job(_job(tmp_path, line))
     assert info.value.field == "loads.deck_shrinkage"
+
+
+def test_the_verdict_names_what_a_pass_presupposes(capsys) -> None:
+    # the harped example passes, but only without the deck-shrinkage stresses (Service III
+    # bottom 1.17 with them, see above) and with bonded steel where lifting puts the top in
+    # tension: the verdict line, the JSON and the report say so
+    import json
+
+    from prestress.cli import main
+
+    r = check_file(HARPED)
+    assert r.ok
+    assert len(r.conditions) == 2
+    assert r.conditions[0].startswith("bonded reinforcement of at least 0.88 in²")
+    assert "deck-shrinkage stresses left out" in r.conditions[1]
+    assert "1.17" in r.conditions[1] and "EXCEEDED" in r.conditions[1]
+    assert main(["check", str(HARPED)]) == 0
+    out = capsys.readouterr().out
+    assert "provided: (1) bonded reinforcement" in " ".join(out.split())
+    assert main(["check", str(HARPED), "--json"]) == 0
+    assert json.loads(capsys.readouterr().out)["conditions"] == list(r.conditions)
+
+
+def test_no_condition_when_the_stresses_are_applied(tmp_path: Path) -> None:
+    r = check_file(_job(tmp_path, "deck_shrinkage = 1.0"))
+    assert not any("left out" in c for c in r.conditions)

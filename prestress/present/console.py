@@ -7,6 +7,7 @@ from __future__ import annotations
 
 from rich import box
 from rich.console import Console, Group
+from rich.markup import escape
 from rich.panel import Panel
 from rich.table import Table
 from rich.text import Text
@@ -427,10 +428,15 @@ def verdict(result: CheckResult) -> str:
         if not govs:
             return "[bold green]PASS[/]: no limit was checked."
         s, (st, fiber, u) = max(govs, key=lambda sg: sg[1][2])
-        return (
+        text = (
             f"[bold green]PASS[/]: every checked fiber at every station is within its limit; "
-            f"highest utilisation {u:.2f} ({s.title}, {FIBER_NAMES[fiber]} at {st.name})."
+            f"highest utilisation {u:.2f} ({s.title}, {FIBER_NAMES[fiber]} at {st.name})"
         )
+        if result.conditions:
+            text += "; provided: " + "; ".join(
+                f"({i}) {escape(c)}" for i, c in enumerate(result.conditions, 1)
+            )
+        return text + "."
     failing = [s for s in result.stages if not s.ok]
     worst = ", ".join(
         f"{s.title} ({sum(1 for st in s.stations if not st.ok)} station(s))" for s in failing

@@ -1309,7 +1309,15 @@ def build(
                 ("Job", job.title),
                 ("Project", job.project or "—"),
                 ("Section", result.girder.section_name),
-                ("Verdict", "PASS" if result.ok else "FAIL (limits exceeded)"),
+                (
+                    "Verdict",
+                    ("PASS" if result.ok else "FAIL (limits exceeded)")
+                    + (
+                        "; a pass presupposes: " + "; ".join(result.conditions)
+                        if result.conditions
+                        else ""
+                    ),
+                ),
                 ("Software", provenance["Software"]),
                 ("SHA-256 of the job file", sha),
                 ("Generated", provenance["Generated"]),
