@@ -18,3 +18,18 @@ def _isolated_cache(tmp_path_factory: pytest.TempPathFactory) -> None:
     """Keep the tests' section cache out of the user's cache folder."""
     os.environ["PRESTRESS_CACHE_DIR"] = str(tmp_path_factory.mktemp("prestress-cache"))
     os.environ.pop("PRESTRESS_SECTIONS", None)
+
+
+def write_job(folder: Path, text: str, name: str = "job.toml") -> Path:
+    """Write a variant of an example job into a folder, with the example limit sets beside it.
+
+    The examples point at ``limits/<set>.toml`` relative to themselves; the copy keeps that
+    working. Returns the job's path.
+    """
+    job = folder / name
+    job.write_text(text, encoding="utf-8")
+    limits = folder / "limits"
+    limits.mkdir(exist_ok=True)
+    for src in (EXAMPLES / "limits").glob("*.toml"):
+        (limits / src.name).write_bytes(src.read_bytes())
+    return job

@@ -15,7 +15,7 @@ import pytest
 from prestress.analysis import check_file, losses_file
 from prestress.errors import InputError
 from prestress.jobfile import load_job
-from tests.conftest import ROOT
+from tests.conftest import ROOT, write_job
 
 HARPED = ROOT / "examples" / "harl-brook-span1-g2-harped.toml"
 KSI = 6.894757293168361
@@ -25,13 +25,7 @@ def _job(tmp_path: Path, line: str) -> Path:
     text = HARPED.read_text(encoding="utf-8").replace(
         'wearing_surface = "0.25 kip/ft"', f'wearing_surface = "0.25 kip/ft"\n{line}'
     )
-    job = tmp_path / "job.toml"
-    job.write_text(text, encoding="utf-8")
-    (tmp_path / "limits").mkdir(exist_ok=True)
-    (tmp_path / "limits" / "aashto-lrfd-9th-service.toml").write_bytes(
-        (ROOT / "examples" / "limits" / "aashto-lrfd-9th-service.toml").read_bytes()
-    )
-    return job
+    return write_job(tmp_path, text)
 
 
 def test_force_agrees_with_the_refined_estimate() -> None:

@@ -25,7 +25,7 @@ from prestress.analysis import check_file
 from prestress.cli import main
 from prestress.errors import InputError
 from prestress.jobfile import load_job
-from tests.conftest import ROOT
+from tests.conftest import ROOT, write_job
 
 HARPED = ROOT / "examples" / "harl-brook-span1-g2-harped.toml"
 KIP = 4448.2216152605  # N per kip (exact)
@@ -119,15 +119,8 @@ def test_console_json_and_csv_carry_the_loads(tmp_path: Path, capsys) -> None:
 
 def _with_live(tmp_path: Path, live: str) -> Path:
     text = HARPED.read_text(encoding="utf-8")
-    start = text.index("[loads.live]")
-    end = text.index("[handling]")
-    out = tmp_path / "job.toml"
-    out.write_text(text[:start] + "[loads.live]\n" + live + "\n\n" + text[end:], encoding="utf-8")
-    (tmp_path / "limits").mkdir(exist_ok=True)
-    (tmp_path / "limits" / "aashto-lrfd-9th-service.toml").write_bytes(
-        (ROOT / "examples" / "limits" / "aashto-lrfd-9th-service.toml").read_bytes()
-    )
-    return out
+    start, end = text.index("[loads.live]"), text.index("[handling]")
+    return write_job(tmp_path, text[:start] + "[loads.live]\n" + live + "\n\n" + text[end:])
 
 
 def test_given_factors_and_no_shear_factor(tmp_path: Path) -> None:

@@ -13,24 +13,14 @@ from pathlib import Path
 import pytest
 
 from prestress.analysis import check_file
-from tests.conftest import ROOT
+from tests.conftest import ROOT, write_job
 
 HARPED = ROOT / "examples" / "harl-brook-span1-g2-harped.toml"
 
 
-def _copy(tmp_path: Path, text: str) -> Path:
-    job = tmp_path / "job.toml"
-    job.write_text(text, encoding="utf-8")
-    (tmp_path / "limits").mkdir(exist_ok=True)
-    (tmp_path / "limits" / "aashto-lrfd-9th-service.toml").write_bytes(
-        (ROOT / "examples" / "limits" / "aashto-lrfd-9th-service.toml").read_bytes()
-    )
-    return job
-
-
 def test_note_when_the_modulus_takes_the_dead_load_weight(tmp_path: Path) -> None:
     text = HARPED.read_text(encoding="utf-8").replace('modulus_unit_weight = "145 pcf"', "")
-    r = check_file(_copy(tmp_path, text))
+    r = check_file(write_job(tmp_path, text))
     notes = [n for n in r.notes if "dead-load unit weight 150 pcf" in n]
     # the 4 ksi deck: 150 pcf > 0.145 + 0.0025 kcf; the 8.5 ksi girder: 150 pcf is within
     # 0.140 + 0.0085 + 0.0025 = 0.151 kcf, plausible for the concrete itself
@@ -63,5 +53,5 @@ def test_no_note_for_a_formula_without_density(tmp_path: Path) -> None:
         .replace('modulus_unit_weight = "145 pcf"', "")
         .replace('modulus = "aashto"', 'modulus = "en1992"')
     )
-    r = check_file(_copy(tmp_path, text))
+    r = check_file(write_job(tmp_path, text))
     assert not any("girder modulus uses the dead-load" in n for n in r.notes)

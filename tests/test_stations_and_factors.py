@@ -14,7 +14,7 @@ import pytest
 
 from prestress.analysis import check_file
 from prestress.jobfile import load_job, service_iii_default
-from tests.conftest import ROOT
+from tests.conftest import ROOT, write_job
 
 HARPED = ROOT / "examples" / "harl-brook-span1-g2-harped.toml"
 PT = ROOT / "examples" / "corrie-beck-g1-post-tensioned.toml"
@@ -62,12 +62,7 @@ def test_service_iii_factor_given_in_the_job_wins_and_is_said(tmp_path) -> None:
     text = HARPED.read_text(encoding="utf-8").replace(
         "[limits]", "[combinations.service_iii]\ndead = 1.0\nlive = 1.0\n\n[limits]"
     )
-    job = tmp_path / "job.toml"
-    job.write_text(text, encoding="utf-8")
-    (tmp_path / "limits").mkdir()
-    (tmp_path / "limits" / "aashto-lrfd-9th-service.toml").write_bytes(
-        (ROOT / "examples" / "limits" / "aashto-lrfd-9th-service.toml").read_bytes()
-    )
+    job = write_job(tmp_path, text)
     c = load_job(job).combinations["service_iii"]
     assert (c.live, c.source) == (1.0, "given in the job")
     r = check_file(job)
@@ -82,12 +77,7 @@ def test_two_handling_factors_are_two_cases(tmp_path) -> None:
     text = HARPED.read_text(encoding="utf-8").replace(
         "dynamic_factor = 1.0", "dynamic_factor = [0.8, 1.2]"
     )
-    job = tmp_path / "job.toml"
-    job.write_text(text, encoding="utf-8")
-    (tmp_path / "limits").mkdir()
-    (tmp_path / "limits" / "aashto-lrfd-9th-service.toml").write_bytes(
-        (ROOT / "examples" / "limits" / "aashto-lrfd-9th-service.toml").read_bytes()
-    )
+    job = write_job(tmp_path, text)
     r = check_file(job)
     base = check_file(HARPED)
     keys = [s.key for s in r.stages]
@@ -112,8 +102,7 @@ def test_bad_dynamic_factor(tmp_path, value: str) -> None:
     text = HARPED.read_text(encoding="utf-8").replace(
         "dynamic_factor = 1.0", f"dynamic_factor = {value}"
     )
-    job = tmp_path / "job.toml"
-    job.write_text(text, encoding="utf-8")
+    job = write_job(tmp_path, text)
     with pytest.raises(InputError) as info:
         load_job(job)
     assert info.value.field == "handling.dynamic_factor"
