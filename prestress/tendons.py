@@ -799,14 +799,33 @@ def post_tensioning_stresses(
         ValueError: If an argument is out of range, or the set is so large that the stress after
             set would be negative somewhere.
     """
+    x = np.atleast_1d(np.asarray(x_mm, dtype=float))
+    profile._locate(x)  # range check of the stations
+    args, zones, xn = _checked_zones(profile, f_pj_MPa, mu, K_per_mm, E_p_MPa, set_mm, jacking)
+    return _evaluate(profile, x, zones, xn, *args, jacking)
+
+
+def _checked_zones(
+    profile: TendonProfile,
+    f_pj_MPa: float,
+    mu: float,
+    K_per_mm: float,
+    E_p_MPa: float,
+    set_mm: float,
+    jacking: JackingEnd,
+) -> tuple[
+    tuple[float, float, float, float], tuple[tuple[AnchorSetZone, AnchorEnd], ...], float | None
+]:
+    """The arguments checked, and the anchor-set zones and neutral point they give.
+
+    Returns ((f_pj, mu, K, set), zones, neutral point).
+    """
     f_pj_MPa, mu, K_per_mm = _check_friction_args(f_pj_MPa, mu, K_per_mm)
     E_p_MPa = _positive("E_p_MPa", E_p_MPa, "MPa")
     set_mm = _non_negative("set_mm", set_mm, "mm")
     _check_end(jacking)
-    x = np.atleast_1d(np.asarray(x_mm, dtype=float))
-    profile._locate(x)  # range check of the stations
     zones, xn = _zones(profile, f_pj_MPa, mu, K_per_mm, E_p_MPa, set_mm, jacking)
-    return _evaluate(profile, x, zones, xn, f_pj_MPa, mu, K_per_mm, set_mm, jacking)
+    return (f_pj_MPa, mu, K_per_mm, set_mm), zones, xn
 
 
 def post_tensioning_stresses_along(
@@ -842,15 +861,11 @@ def post_tensioning_stresses_along(
     """
     if n < 2:
         raise ValueError(f"n must be >= 2, got {n!r}")
-    f_pj_MPa, mu, K_per_mm = _check_friction_args(f_pj_MPa, mu, K_per_mm)
-    E_p_MPa = _positive("E_p_MPa", E_p_MPa, "MPa")
-    set_mm = _non_negative("set_mm", set_mm, "mm")
-    _check_end(jacking)
-    zones, xn = _zones(profile, f_pj_MPa, mu, K_per_mm, E_p_MPa, set_mm, jacking)
+    args, zones, xn = _checked_zones(profile, f_pj_MPa, mu, K_per_mm, E_p_MPa, set_mm, jacking)
     x0, x1 = profile.x_start_mm, profile.x_end_mm
     extra = [z.x_set_mm for z, _ in zones] + ([] if xn is None else [xn])
     x = np.unique(np.concatenate([np.linspace(x0, x1, n), np.clip(extra, x0, x1)]))
-    return _evaluate(profile, x, zones, xn, f_pj_MPa, mu, K_per_mm, set_mm, jacking)
+    return _evaluate(profile, x, zones, xn, *args, jacking)
 
 
 def _evaluate(
