@@ -21,7 +21,7 @@ Losses are returned as positive numbers (a loss reduces the strand stress).
 """
 
 import math
-from dataclasses import dataclass
+from dataclasses import dataclass, replace
 from types import MappingProxyType
 
 import numpy as np
@@ -291,49 +291,33 @@ class TendonStressLimit:
 # AASHTO LRFD 9th Ed. (2020) Table 5.9.2.2-1, "Stress Limits for Prestressing Steel",
 # post-tensioning rows. Every value is `from memory` (the printed table was not at hand): check
 # it against the specification before relying on it.
+_LOW_RELAXATION_LIMITS = (
+    TendonStressLimit(
+        "prior_to_seating", "prior to seating, short-term fpbt may be allowed", 0.90, "fpy"
+    ),
+    TendonStressLimit(
+        "anchorage_after_set",
+        "at anchorages and couplers immediately after anchor set",
+        0.70,
+        "fpu",
+    ),
+    TendonStressLimit(
+        "elsewhere_after_set",
+        "elsewhere along the length of the member away from anchorages and couplers "
+        "immediately after anchor set",
+        0.74,
+        "fpu",
+    ),
+    TendonStressLimit("service", "at the service limit state after all losses, fpe", 0.80, "fpy"),
+)
+
 TENDON_STRESS_LIMITS: MappingProxyType[str, tuple[TendonStressLimit, ...]] = MappingProxyType(
     {
-        "low": (
-            TendonStressLimit(
-                "prior_to_seating", "prior to seating, short-term fpbt may be allowed", 0.90, "fpy"
-            ),
-            TendonStressLimit(
-                "anchorage_after_set",
-                "at anchorages and couplers immediately after anchor set",
-                0.70,
-                "fpu",
-            ),
-            TendonStressLimit(
-                "elsewhere_after_set",
-                "elsewhere along the length of the member away from anchorages and couplers "
-                "immediately after anchor set",
-                0.74,
-                "fpu",
-            ),
-            TendonStressLimit(
-                "service", "at the service limit state after all losses, fpe", 0.80, "fpy"
-            ),
-        ),
-        "stress-relieved": (
-            TendonStressLimit(
-                "prior_to_seating", "prior to seating, short-term fpbt may be allowed", 0.90, "fpy"
-            ),
-            TendonStressLimit(
-                "anchorage_after_set",
-                "at anchorages and couplers immediately after anchor set",
-                0.70,
-                "fpu",
-            ),
-            TendonStressLimit(
-                "elsewhere_after_set",
-                "elsewhere along the length of the member away from anchorages and couplers "
-                "immediately after anchor set",
-                0.70,
-                "fpu",
-            ),
-            TendonStressLimit(
-                "service", "at the service limit state after all losses, fpe", 0.80, "fpy"
-            ),
+        "low": _LOW_RELAXATION_LIMITS,
+        # stress-relieved strand: the same rows, 0.70 fpu away from the anchorages too
+        "stress-relieved": tuple(
+            replace(r, fraction=0.70) if r.key == "elsewhere_after_set" else r
+            for r in _LOW_RELAXATION_LIMITS
         ),
     }
 )
