@@ -2,6 +2,7 @@
 
 from __future__ import annotations
 
+import math
 from typing import TYPE_CHECKING, Any
 
 from prestress.units import ascii_label, from_internal, out_unit
@@ -40,10 +41,14 @@ def fmt(v: float | None, system: str, role: str, digits: int = 3) -> str:
         return "—"
     x = value(v, system, role)
     mag = abs(x)
+    digits = _digits(system, role, digits)
     if mag < 0.5 * 10**-digits:
         return "0"
-    if mag >= 1e9:
-        return f"{x:.4g}"
+    big = 1e6 if role in ("modulus", "inertia") and "mm" in label(system, role) else 1e9
+    if mag >= big:  # engineering notation: 227.2×10⁹ mm⁴, 158.9×10⁶ mm³
+        k = 3 * (math.floor(math.log10(mag)) // 3)
+        sup = str(k).translate(str.maketrans("0123456789-", "⁰¹²³⁴⁵⁶⁷⁸⁹⁻"))
+        return f"{x / 10**k:.1f}×10{sup}".replace("-", "−")
     # decimals by magnitude, never more for a larger number, judged on the number as it will
     # be printed (99.996 prints as "100.0", not "100.00"); a true minus sign
     text = f"{x:.{digits}f}"
@@ -55,8 +60,16 @@ def fmt(v: float | None, system: str, role: str, digits: int = 3) -> str:
     return text.replace("-", "−")
 
 
+def _digits(system: str, role: str, digits: int) -> int:
+    """Decimals for a role: stresses in MPa to 0.01 (0.001 MPa is beyond any concrete)."""
+    if role == "stress" and label(system, role) == "MPa":
+        return min(digits, 2)
+    return digits
+
+
 def signed(v: float, system: str, role: str, digits: int = 3) -> str:
     """A stress with an explicit sign (tension +, compression −)."""
+    digits = _digits(system, role, digits)
     x = value(v, system, role)
     if abs(x) < 0.5 * 10**-digits:
         return f"{0:.{digits}f}"
