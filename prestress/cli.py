@@ -24,8 +24,21 @@ class _Parser(argparse.ArgumentParser):
         self.exit(EXIT_INPUT, f"prestress: error: {message} (see 'prestress --help')\n")
 
 
+def _output_units(text: str) -> str:
+    """The ``--units`` value, read whatever its case: "US" or "SI"."""
+    system = text.strip().upper()
+    if system not in ("US", "SI"):
+        raise argparse.ArgumentTypeError(f"expected US or SI (any case); got '{text}'")
+    return system
+
+
 def _add_common(p: argparse.ArgumentParser) -> None:
-    p.add_argument("--units", choices=("US", "SI"), help="output units (default: the job's)")
+    p.add_argument(
+        "--units",
+        type=_output_units,
+        metavar="{US,SI}",
+        help="output units, US or SI in any case (default: the job's)",
+    )
     p.add_argument(
         "--library",
         action="append",

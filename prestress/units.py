@@ -96,6 +96,9 @@ def _describe(value: Any) -> str:
 def parse_quantity(value: Any, kind: str, *, field: str = "", file: str = "") -> pint.Quantity:
     """Parse a job-file value into a pint quantity of the given kind.
 
+    The text is first put in pint's spelling by :func:`normalise_quantity` ("1150 kip-ft",
+    "0.217 in²", "5.5 KSI"); error messages quote the value as written.
+
     Args:
         value: the raw TOML value; must be a string with a unit for dimensional kinds.
         kind: a key of :data:`KINDS`.
@@ -115,7 +118,7 @@ def parse_quantity(value: Any, kind: str, *, field: str = "", file: str = "") ->
             raise InputError(expected, file=file, field=field, got=_describe(value))
         q = ureg.Quantity(float(value), "")
     else:
-        text = value.strip()
+        text = normalise_quantity(value.strip())
         if not text:
             raise InputError(expected, file=file, field=field, got="an empty string")
         if (
@@ -174,6 +177,111 @@ _QUANTITY_RE = re.compile(
 )
 
 _NUMBER_UNIT = re.compile(r"^\s*([-+]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][-+]?\d+)?)\s*(\S.*?)\s*$")
+
+#: A plain number written as a string ("0.7"): a dimensionless value without a unit.
+_PLAIN_NUMBER = re.compile(r"^\s*[-+]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][-+]?\d+)?\s*$")
+
+#: Size of the dimensionless units read without pint (pint's definitions: percent = 0.01).
+_DIMENSIONLESS_UNITS = {"percent": 0.01, "%": 0.01}
+
+# Spellings engineers write that pint does not read, put in pint's spelling by
+# normalise_quantity. Each rule acts on the unit text only (never on the number, so a minus
+# sign or an exponent such as 1e-3 is untouched) and only where the text would otherwise be
+# refused: nothing that parsed before changes its meaning.
+
+#: A run of superscript characters, an exponent: "in²" is "in**2", "ft⁻¹" is "ft**-1".
+_SUPERSCRIPT_RUN = re.compile("\u207b?[\u2070\u00b9\u00b2\u00b3\u2074-\u2079]+")
+_SUPERSCRIPT_DIGITS = str.maketrans(
+    "\u2070\u00b9\u00b2\u00b3\u2074\u2075\u2076\u2077\u2078\u2079\u207b", "0123456789-"
+)
+#: A hyphen joining two unit words: "kip-ft", "ft-kips", "kN-m" are products.
+_HYPHEN_PRODUCT = re.compile(r"(?<=[A-Za-z])-(?=[A-Za-z])")
+#: A unit word standing alone (not part of a longer name such as "kN", "kg" or "ksi").
+_UNIT_WORD = re.compile(r"(?<![A-Za-z0-9_°µ%])[A-Za-z]+(?![A-Za-z0-9_°µ%])")
+#: Whole unit words read as another spelling: "k" and "kips" are the kip (common practice in
+#: US bridge drawings: "k", "k/ft", "k-ft"); "k" alone is otherwise pint's Boltzmann constant,
+#: never a valid job-file unit. Stress and unit-weight abbreviations are read whatever their
+#: case ("KSI", "Mpa"), except the exact spelling "mPa", which pint reads as the millipascal
+#: and which keeps the meaning it always had here (no guess that the megapascal was meant).
+_WORD_SPELLINGS = {"k": "kip", "kips": "kip"}
+_CASE_FREE_WORDS = {
+    "ksi": "ksi",
+    "psi": "psi",
+    "mpa": "MPa",
+    "gpa": "GPa",
+    "kcf": "kcf",
+    "pcf": "pcf",
+}
+_PINT_WORDS = {"mPa"}
+
+
+def _spell_word(m: re.Match[str]) -> str:
+    word = m.group(0)
+    if word in _WORD_SPELLINGS:
+        return _WORD_SPELLINGS[word]
+    if word in _PINT_WORDS:
+        return word
+    return _CASE_FREE_WORDS.get(word.lower(), word)
+
+
+def normalise_quantity(text: str) -> str:
+    """Put a job-file quantity in pint's spelling; text that is not "number unit" is returned.
+
+    Rules (on the unit text only; the number is kept as written):
+
+    - superscript exponents become powers: ``"0.217 in²"`` → ``"0.217 in**2"``;
+    - the middle dot (· or ⋅) is a product: ``"1150 kip·ft"`` → ``"1150 kip*ft"``;
+    - a hyphen directly between two unit words, before any ``/``, is a product:
+      ``"1150 kip-ft"`` → ``"1150 kip*ft"``, ``"1150 ft-kips"`` → ``"1150 ft*kip"``; a hyphen
+      after a ``/`` (``"kip/ft-in"``: per foot-inch, or per foot times inch?) or before a
+      number (``"79 ft-6 in"``) is left, so the text is refused rather than guessed at;
+    - the words ``k`` and ``kips`` standing alone are the kip (``"0.25 k/ft"``), never inside
+      a longer name (``kN``, ``kg``, ``km``, ``ksi``, ``kcf`` are untouched);
+    - ``ksi``, ``psi``, ``MPa``, ``GPa``, ``kcf`` and ``pcf`` are read in any case
+      (``"5.5 KSI"``), except ``mPa``, pint's millipascal, which keeps that meaning.
+
+    Args:
+        text: the value as written in the job file.
+
+    Returns:
+        The same quantity in pint's spelling, or ``text`` itself when it is not one number
+        followed by a unit (a plain number such as ``"54"`` included).
+    """
+    m = None if _PLAIN_NUMBER.match(text) else _NUMBER_UNIT.match(text)
+    if m is None:
+        return text
+    number, unit = m.groups()
+    unit = _SUPERSCRIPT_RUN.sub(lambda r: "**" + r.group(0).translate(_SUPERSCRIPT_DIGITS), unit)
+    unit = unit.replace("\u00b7", "*").replace("\u22c5", "*")
+    slash = unit.find("/")
+    if slash < 0:
+        unit = _HYPHEN_PRODUCT.sub("*", unit)
+    else:
+        unit = _HYPHEN_PRODUCT.sub("*", unit[:slash]) + unit[slash:]
+    unit = _UNIT_WORD.sub(_spell_word, unit)
+    return f"{number} {unit}"
+
+
+def _dimensionless_without_pint(value: Any) -> float | None:
+    """A plain number, or a number in percent, read without pint; None if anything else."""
+    if isinstance(value, bool):
+        return None
+    if isinstance(value, int | float):
+        try:
+            result = float(value)
+        except OverflowError:
+            return None
+        return result if math.isfinite(result) else None
+    if not isinstance(value, str):
+        return None
+    if _PLAIN_NUMBER.match(value):
+        result = float(value)
+        return result if math.isfinite(result) else None
+    m = _NUMBER_UNIT.match(value)
+    if m is None or m.group(2) not in _DIMENSIONLESS_UNITS:
+        return None
+    result = float(m.group(1)) * _DIMENSIONLESS_UNITS[m.group(2)]
+    return result if math.isfinite(result) else None
 
 
 _FACTORS: dict[str, float] | None = None
@@ -242,12 +350,19 @@ def _unit_factor(unit_text: str, kind: str) -> float | None:
 def to_internal(value: Any, kind: str, *, field: str = "", file: str = "") -> float:
     """Parse a job-file value and return its magnitude in the internal base system.
 
-    Fast path: "number unit" strings are split by a regular expression and the unit's factor
-    is cached, so pint parses each distinct unit once per process; anything else (and every
-    error) goes through :func:`parse_quantity`.
+    Fast path: the text is put in pint's spelling (:func:`normalise_quantity`), "number unit"
+    strings are split by a regular expression and the unit's factor is cached, so pint parses
+    each distinct unit once per process; a dimensionless plain number or percentage
+    (``"0.7"``, ``"70 percent"``, ``"70 %"``) never needs pint. Anything else (and every error)
+    goes through :func:`parse_quantity`.
     """
-    if isinstance(value, str) and kind != "dimensionless" and _QUANTITY_RE.match(value):
-        m = _NUMBER_UNIT.match(value)
+    if kind == "dimensionless":
+        plain = _dimensionless_without_pint(value)
+        if plain is not None:
+            return plain
+    text = normalise_quantity(value) if isinstance(value, str) else None
+    if text is not None and _QUANTITY_RE.match(text):
+        m = _NUMBER_UNIT.match(text)
         if m is not None:
             factor = _unit_factor(m.group(2), kind)
             if factor is not None:

@@ -374,11 +374,21 @@ CASES = [
         ["7 1/2 in"],
     ),
     Case("job-feet-and-inches-without-operator.toml", "girder.span", ["one number, then its unit"]),
+    # a hyphen is a product only between two unit words ("kip-ft"), never a sum of lengths
+    Case("job-feet-hyphen-inches-span.toml", "girder.span", ["one number, then its unit"]),
+    # "mPa" is pint's millipascal and keeps that meaning (no guess that MPa was meant)
+    Case("job-fc-millipascal.toml", "girder.concrete.fc", ["concrete strength"]),
     Case("job-unknown-girder-position.toml", "girder.position", ["one of", "'exterior'"]),
     Case("job-bare-number-girder-spacing.toml", "girder.spacing", ["bare number"]),
     Case("job-unknown-loss-section.toml", "losses.section", ["one of", "'transformed'"]),
     Case("job-refined-losses-without-deck.toml", "losses.method", ["a [deck] table"]),
     Case("job-unknown-section-name.toml", "girder.section", ["did you mean"]),
+    # a name with spaces is not taken for a path: the library name ending with it is suggested
+    Case(
+        "job-section-name-with-spaces.toml",
+        "girder.section",
+        ["did you mean 'AASHTO-Type-IV'?", "'Type IV'"],
+    ),
     Case("job-section-name-is-path.toml", "girder.section", ["not a path"]),
     Case("job-section-name-absolute-path.toml", "girder.section", ["not a path"]),
     Case("job-section-name-toml-file.toml", "girder.section", ["not a path"]),

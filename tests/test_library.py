@@ -83,3 +83,51 @@ def test_unknown_name_suggests_near_names() -> None:
     lib = load_library(search_folders())
     with pytest.raises(InputError, match="did you mean"):
         lib.get("AASHTO-PCI-BT-55", file="job.toml", field="girder.section")
+
+
+@pytest.mark.parametrize(
+    ("given", "suggested"),
+    [
+        # the library names that end with the designation, ignoring case, spaces, hyphens and
+        # underscores (AASHTO-PCI bulb-tees and AASHTO I-beams of the shipped library)
+        ("BT-54", ["AASHTO-PCI-BT-54"]),
+        ("bt54", ["AASHTO-PCI-BT-54"]),
+        ("BT_72", ["AASHTO-PCI-BT-72"]),
+        ("Type IV", ["AASHTO-Type-IV"]),
+        ("type-iv", ["AASHTO-Type-IV"]),
+        ("Type I", ["AASHTO-Type-I"]),  # ends with: not Type-II, Type-III
+        ("AASHTO Type VI", ["AASHTO-Type-VI"]),
+        ("AASHTO-Type-IV ", ["AASHTO-Type-IV"]),  # a stray space: suggested, not accepted
+        # none ends with it: the names that contain it
+        ("PCI-BT", ["AASHTO-PCI-BT-54", "AASHTO-PCI-BT-63", "AASHTO-PCI-BT-72"]),
+        # neither: the nearest names by spelling, as before
+        ("AASHTO-PCI-BT-55", ["AASHTO-PCI-BT-54"]),
+    ],
+)
+def test_unknown_name_suggests_the_names_ending_with_it(given: str, suggested: list[str]) -> None:
+    lib = load_library(search_folders())
+    with pytest.raises(InputError) as err:
+        lib.get(given, file="job.toml", field="girder.section")
+    msg = str(err.value)
+    assert "\n" not in msg and "job.toml" in msg and "girder.section" in msg
+    assert "the name of a section in the library" in msg
+    hint = msg.split("did you mean ", 1)[1].split("?)", 1)[0]
+    names = [n.strip(" '") for n in hint.split(",")]
+    assert names[: len(suggested)] == suggested
+
+
+def test_a_near_name_is_never_accepted() -> None:
+    """Only the exact name (any case) is found; shorthand only gets a suggestion."""
+    lib = load_library(search_folders())
+    assert lib.get("aashto-pci-bt-54").name == "AASHTO-PCI-BT-54"
+    for near in ["BT-54", "AASHTO_PCI_BT_54", "AASHTO PCI BT 54", " AASHTO-PCI-BT-54"]:
+        with pytest.raises(InputError) as err:
+            lib.get(near, file="job.toml", field="girder.section")
+        assert "did you mean 'AASHTO-PCI-BT-54'?" in str(err.value)
+
+
+@pytest.mark.parametrize("name", ["../x", "a b/c", "sections/bt54.toml", "x\\y z", "..  BT"])
+def test_names_with_spaces_that_are_paths_are_still_refused(name: str) -> None:
+    lib = load_library(search_folders())
+    with pytest.raises(InputError, match="not a path"):
+        lib.get(name, file="job.toml", field="girder.section")

@@ -25,7 +25,16 @@ from prestress.tomlread import Table, read_toml
 #: A valid section name: letters, digits, and . _ + - (no separators, no "..").
 NAME_RE = re.compile(r"^[A-Za-z0-9][A-Za-z0-9._+-]{0,79}$")
 
+#: A name written with spaces ("Type IV"): never in the library (names have none), but not a
+#: path either, so it gets the not-found message with its suggestions.
+_SPACED_NAME_RE = re.compile(r"^[A-Za-z0-9._+ -]{1,80}$")
+
 ENV_VAR = "PRESTRESS_SECTIONS"
+
+
+def _compact(name: str) -> str:
+    """A name ignoring case, spaces, hyphens and underscores: "Type IV" -> "typeiv"."""
+    return re.sub(r"[\s_-]+", "", name).lower()
 
 
 @dataclass(frozen=True)
@@ -64,15 +73,27 @@ class Library:
     notices: list[str] = field(default_factory=list)
 
     def get(self, name: str, *, file: str = "", field: str = "") -> SectionEntry:
-        """Return the named section; unknown or malformed names give an InputError."""
-        check_name(name, file=file, field=field)
-        entry = self.entries.get(name.lower())
-        if entry is None:
-            import difflib
+        """Return the named section; unknown or malformed names give an InputError.
 
-            near = difflib.get_close_matches(name.lower(), list(self.entries), n=3, cutoff=0.5)
+        Only the exact name (in any case) is accepted. For an unknown name the one-line
+        message suggests, in this order: the names that end with the given designation or,
+        failing that, contain it, both ignoring case, spaces, hyphens and underscores
+        ("BT-54" -> 'AASHTO-PCI-BT-54', "Type IV" -> 'AASHTO-Type-IV'); failing both, the
+        nearest names by spelling.
+        """
+        spaced = (
+            isinstance(name, str)
+            and " " in name
+            and ".." not in name
+            and _SPACED_NAME_RE.match(name) is not None
+        )
+        if not spaced:
+            check_name(name, file=file, field=field)
+        entry = None if spaced else self.entries.get(name.lower())
+        if entry is None:
+            near = [self.entries[k].name for k in self.suggestions(name)]
             hint = (
-                " (did you mean " + ", ".join(f"'{self.entries[n].name}'" for n in near) + "?)"
+                " (did you mean " + ", ".join(f"'{n}'" for n in near) + "?)"
                 if near
                 else " (run 'prestress sections' to list them)"
             )
@@ -83,6 +104,26 @@ class Library:
                 got=f"'{name}'",
             )
         return entry
+
+    def suggestions(self, name: str, n: int = 3) -> list[str]:
+        """Keys of the library names an unknown ``name`` may have meant (at most ``n``).
+
+        Names ending with ``name`` come first, then names containing it (both compared
+        ignoring case, spaces, hyphens and underscores), then the nearest by spelling
+        (difflib); the first rule that finds any decides. Shorter names come first.
+        """
+        given = _compact(name)
+        if given:
+            keys = sorted(self.entries, key=lambda k: (len(k), k))
+            ends = [k for k in keys if _compact(k).endswith(given)]
+            if ends:
+                return ends[:n]
+            contains = [k for k in keys if given in _compact(k)]
+            if contains:
+                return contains[:n]
+        import difflib
+
+        return difflib.get_close_matches(name.lower(), list(self.entries), n=n, cutoff=0.5)
 
     def names(self) -> list[str]:
         """All section names, sorted."""
