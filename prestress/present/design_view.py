@@ -99,21 +99,27 @@ def candidates_table(result: DesignResult, system: str | None = None) -> Table:
         title_style="bold",
         box=box.SIMPLE_HEAD,
         caption=f"Stresses in {su}, tension +, compression −; stress / limit of the governing "
-        "check. Each candidate was checked again by the full check (as prestress check does).",
+        "check; stations at their distance from the left girder end. Each candidate was "
+        "checked again by the full check (as prestress check does). Patterns (strands per "
+        "row, from the bottom):\n"
+        + "\n".join(f"  {k}. {pattern_text(rc.candidate, system)}" for k, rc in enumerate(rows, 1)),
         caption_justify="left",
     )
-    for col in ("#", "strands", "harped / debonded", "pattern (from the bottom)"):
-        t.add_column(col, justify="right" if col in ("#", "strands") else "left")
+    for col in ("#", "strands", "harped / debonded"):
+        t.add_column(col, justify="right" if col in ("#", "strands") else "left", no_wrap=True)
     for col in ("governing stage", "station", "fiber", "stress / limit", "use"):
-        t.add_column(col, justify="right" if col in ("stress / limit", "use") else "left")
-    t.add_column("")
+        t.add_column(
+            col,
+            justify="right" if col in ("stress / limit", "use") else "left",
+            no_wrap=col != "governing stage",
+        )
+    t.add_column("", no_wrap=True)
     for k, rc in enumerate(rows, 1):
         c = rc.candidate
         t.add_row(
             str(k),
             str(c.strands),
             _special(c),
-            pattern_text(c, system),
             *_gov_cells(rc.governing, system),
             "[green]passes[/]" if rc.ok else "[bold red]FAILS[/]",
         )
