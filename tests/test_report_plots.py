@@ -358,7 +358,7 @@ def test_report_escapes_user_strings(harped: CheckResult) -> None:
     assert "<script" not in text and "<b>Co" not in text
     assert "&lt;script&gt;alert(&quot;x&quot;)&lt;/script&gt; &amp; &lt;b&gt;Co&lt;/b&gt;" in text
     md = render_markdown(title, sections)
-    body, appendix = md.split("## Appendix")
+    body, appendix = md.split("## Appendix", 1)  # the job file's appendix comes first
     assert "<script" not in body and "&lt;script&gt;" in body
     assert "~~~~toml\ntitle = '<script>'" in appendix  # inside a code fence: shown as text
 
@@ -366,6 +366,15 @@ def test_report_escapes_user_strings(harped: CheckResult) -> None:
 def test_markdown_report(us: CheckResult, tmp_path: Path) -> None:
     out = write_report(us, tmp_path / "r.md", job_text=US_EXAMPLE.read_bytes(), system="SI")
     text = out.read_text(encoding="utf-8")
+    # the figures are SVG files beside the report, linked (not embedded as data URIs)
+    figures = sorted(p.name for p in tmp_path.glob("r-figure-*.svg"))
+    assert figures == [f"r-figure-{i}.svg" for i in range(1, 6)]
+    for name in figures:
+        assert f"]({name})" in text
+        root = ET.parse(tmp_path / name).getroot()
+        assert root.tag == f"{SVG_NS}svg"
+    assert "data:image/svg+xml;base64," not in text
+    assert not list(tmp_path.glob(".*"))  # no temporary file left behind
     for heading in (
         "## Inputs as the tool understood them",
         "## Section properties",
@@ -379,8 +388,25 @@ def test_markdown_report(us: CheckResult, tmp_path: Path) -> None:
         assert heading in text
     assert text.count(CAUTION) == 2
     assert hashlib.sha256(US_EXAMPLE.read_bytes()).hexdigest() in text
-    assert text.count("data:image/svg+xml;base64,") == 5
     assert "Loss (MPa)" in text and "Loss (ksi)" not in text  # the output system
+    # render_markdown alone (no files) embeds the figures
+    title, sections, _ = build(us, job_text=US_EXAMPLE.read_bytes(), generated=FIXED_DATE)
+    assert render_markdown(title, sections).count("data:image/svg+xml;base64,") == 5
+
+
+def test_markdown_figures_are_not_overwritten_without_force(
+    us: CheckResult, tmp_path: Path
+) -> None:
+    job_text = US_EXAMPLE.read_bytes()
+    mine = tmp_path / "r-figure-3.svg"
+    mine.write_text("keep me", encoding="utf-8")
+    with pytest.raises(InputError, match=r"r-figure-3\.svg.*force"):
+        write_report(us, tmp_path / "r.md", job_text=job_text)
+    assert sorted(p.name for p in tmp_path.iterdir()) == ["r-figure-3.svg"]  # nothing written
+    assert mine.read_text(encoding="utf-8") == "keep me"
+    write_report(us, tmp_path / "r.md", job_text=job_text, force=True)
+    assert mine.read_text(encoding="utf-8").lstrip().startswith("<?xml")
+    assert len(list(tmp_path.glob("r-figure-*.svg"))) == 5
 
 
 def test_report_refusals(us: CheckResult, tmp_path: Path) -> None:

@@ -108,7 +108,11 @@ def plot_section(result: CheckResult, path: str | os.PathLike[str], system: str)
     _suffix(path)
     g = result.girder
     job = g.job
-    if job.layout is not None:
+    title = f"{g.section_name}: strands at midlength"
+    if job.post_tensioned:
+        strands = tendon_strands_at_midlength(result)
+        title = f"{g.section_name}: tendons at midlength (strands at their duct's centre)"
+    elif job.layout is not None:
         strands = job.layout.all_strand_positions(job.length / 2.0)
     else:
         strands = [(float(x), r.height) for r in job.rows for x in r.x_positions()]
@@ -118,13 +122,33 @@ def plot_section(result: CheckResult, path: str | os.PathLike[str], system: str)
     draw_section(
         g.polygon,  # type: ignore[arg-type]
         out_path=path,
-        title=f"{g.section_name}: strands at midlength",
+        title=title,
         centroid_y_mm=g.gross.yb,
         strands_mm=strands,
         deck=deck,
         units=system,
     )
     return Path(path)
+
+
+def tendon_strands_at_midlength(result: CheckResult) -> list[tuple[float, float]]:
+    """The strands of every tendon at the girder's midlength, each at its duct's centre (mm).
+
+    The ducts lie on the girder axis at their profile heights (as the section net of the
+    open ducts assumes, :func:`prestress.sections.composite.section_at_stressing`); the
+    strands' places inside a duct are not known, so each tendon's strands are drawn at the
+    duct's centre (one point per strand, so the drawing counts them all).
+    """
+    job = result.girder.job
+    xm = job.length / 2.0
+    out: list[tuple[float, float]] = []
+    for t in job.tendons:
+        prof = t.profile()
+        if not prof.x_start_mm <= xm <= prof.x_end_mm:
+            continue
+        y = float(prof.height(xm))
+        out += [(0.0, y)] * t.strands
+    return out
 
 
 # ------------------------------------------------------------------------------------------
@@ -322,7 +346,9 @@ def plot_zone(result: CheckResult, path: str | os.PathLike[str], system: str) ->
     (as ``prestress zone`` does); it is shaded where it lies within the girder depth, its
     edges drawn as thin lines, and marked in red along the bottom where it is empty. The girder
     bottom and top, the hold-downs (triangles on the top), the debond ends (dashed lines) and
-    the checked stations (ticks) are drawn. Heights are exaggerated against the length.
+    the checked stations (ticks) are drawn; for a post-tensioned girder, the tendon profiles
+    (thin dashed lines) with the cgs of the effective prestress. Heights are exaggerated
+    against the length.
 
     Args:
         result: the check.
@@ -337,10 +363,8 @@ def plot_zone(result: CheckResult, path: str | os.PathLike[str], system: str) ->
     _suffix(path)
     g = result.girder
     job = g.job
-    if job.layout is None or not result.stages:
-        raise InputError(
-            "a pretensioned layout checked stage by stage for the zone", field="strands"
-        )
+    if not result.stages:
+        raise InputError("a check with at least one stage for the zone", field="stages")
     L, h = job.length, g.gross.height
     profile = zone_at(g, result.losses, _dense_stations(result, 301))
     X = np.array([value(z.station.x, system, "position") for z in profile])
@@ -373,6 +397,17 @@ def plot_zone(result: CheckResult, path: str | os.PathLike[str], system: str) ->
         ax.fill_between(X, -0.04 * H, 0.0, where=empty, color=_FAIL, lw=0, label="no band")
     xL = value(L, system, "position")
     ax.plot([0, xL, xL, 0, 0], [0, 0, H, H, 0], color="#555555", lw=1.0, label="girder outline")
+    for k, t in enumerate(job.tendons):
+        prof = t.profile()
+        xt = np.linspace(prof.x_start_mm, prof.x_end_mm, 121)
+        ax.plot(
+            [value(v, system, "position") for v in xt],
+            [dim(v) for v in np.asarray(prof.height(xt))],
+            color=_GREY,
+            ls="--",
+            lw=0.7,
+            label="tendon profiles" if k == 0 else None,
+        )
     ax.plot(X, cgs, color=_INK, lw=1.6, label="cgs")
     outside = np.array(
         [not z.inside and (z.low is not None or z.high is not None) for z in profile]
@@ -457,8 +492,12 @@ def plot_losses(
 
     The milestones of the method (stress before transfer in the bed, just after transfer,
     at deck placement where the method gives it, final) are drawn as points joined by thin
-    dotted lines: the method gives no path between them. Jacking is drawn at the left edge, as
-    a level line held by the bed until transfer, where elastic shortening drops the stress.
+    dotted lines: the method gives no path between them. For a pretensioned girder, jacking is
+    drawn at the left edge, as a level line held by the bed until transfer, where elastic
+    shortening drops the stress. For a post-tensioned girder, the tendons are jacked at the
+    age of stressing (the job's transfer age), where friction, anchor set and elastic
+    shortening drop the stress at once; the stresses are those of the loss breakdown (at
+    midlength, the tendons' area-weighted mean).
 
     Args:
         result: the check.
@@ -482,19 +521,23 @@ def plot_losses(
         ages += [a for a, _ in timestep if a > 0]
     t_min = min([t.transfer, *ages]) / 30.0  # room on the left for the transfer label
     t_max = max([t.final, *ages]) * 2.0
+    pt = job.post_tensioned
     fig = _figure(8.0, 4.2)
-    ax = fig.add_axes((0.1, 0.14, 0.72, 0.74))
+    ax = fig.add_axes((0.1, 0.18, 0.72, 0.70) if pt else (0.1, 0.14, 0.72, 0.74))
     _style_axes(ax)
     ax.set_xscale("log")
-    fpbt = job.strand.stress_before_transfer
+    # post-tensioning: no casting bed; the tendons are jacked at the age of stressing
+    fpbt = b.jacking_stress if pt else job.strand.stress_before_transfer
+    t_jack = t.transfer if pt else t_min
     held = abs(fpbt - b.jacking_stress) < 1e-9  # no loss in the bed: a level line
-    ax.plot(
-        [t_min, t.transfer],
-        [s(b.jacking_stress), s(fpbt)],
-        color=_INK,
-        lw=1.2 if held else 1.0,
-        ls="-" if held else ":",
-    )
+    if not pt:
+        ax.plot(
+            [t_min, t.transfer],
+            [s(b.jacking_stress), s(fpbt)],
+            color=_INK,
+            lw=1.2 if held else 1.0,
+            ls="-" if held else ":",
+        )
     pts = [(m.age, m.stress, m.label) for m in b.milestones if m.age is not None]
     first = next((p for p in pts if p[0] is not None), None)
     if first is not None:
@@ -511,7 +554,7 @@ def plot_losses(
         zorder=5,
     )
     ax.plot(
-        [t_min],
+        [t_jack],
         [s(b.jacking_stress)],
         ls="none",
         marker="s",
@@ -522,10 +565,11 @@ def plot_losses(
         zorder=5,
     )
     ax.annotate(
-        f"jacking {s(b.jacking_stress):.4g} {su}",
-        (t_min, s(b.jacking_stress)),
-        xytext=(6, 5),
+        f"jacking {s(b.jacking_stress):.4g} {su}" + (f", {t_jack:g} d" if pt else ""),
+        (t_jack, s(b.jacking_stress)),
+        xytext=(-6, 5) if pt else (6, 5),
         textcoords="offset points",
+        ha="right" if pt else "left",
         fontsize=_FONT - 1,
     )
     previous = fpbt
@@ -558,15 +602,21 @@ def plot_losses(
     )
     sec.set_ylabel("% of the jacking stress fpj", fontsize=_FONT)
     sec.tick_params(labelsize=_FONT)
-    ax.set_title(f"Strand stress with time — {b.method}", fontsize=_FONT + 2, loc="left")
+    ax.set_title(
+        f"{'Tendon' if pt else 'Strand'} stress with time — {b.method}",
+        fontsize=_FONT + 2,
+        loc="left",
+    )
     ax.legend(fontsize=_FONT - 1, loc="upper right", frameon=True, framealpha=0.9)
     fig.text(
         0.1,
         0.015,
         f"Total loss {s(b.total):.4g} {su} "
         f"({100 * b.total / fpj:.1f} % of fpj); dotted: the method gives no path "
-        "between its milestones.",
+        "between its milestones"
+        + (".\nTendon stresses at midlength, the tendons' area-weighted mean." if pt else "."),
         fontsize=_FONT - 1,
+        va="bottom",
     )
     return _save(fig, path)
 
@@ -630,8 +680,10 @@ class MagnelSetup:
         A: gross area; I: gross inertia; yb, yt: centroid to bottom and top fibers.
         Zb, Zt: gross section moduli at the bottom and top (positive).
         e: the design eccentricity (strand centroid below the gross centroid).
-        P_i: force just after transfer, Aps,developed × fpt.
-        P_e: effective force in service, Aps,developed × fpe.
+        P_i: force just after transfer, Aps,developed × fpt (post-tensioned: the tendon
+            forces at the station just after stressing).
+        P_e: effective force in service, Aps,developed × fpe (post-tensioned: the tendon
+            forces at the station after all losses).
         M_i: release moment (girder self-weight on its length).
         lines: the inequalities.
     """
@@ -718,6 +770,17 @@ def magnel_lines(result: CheckResult, station: str | None = None) -> MagnelSetup
     the effective force (× fpe), whatever the job's section basis; on gross sections these
     are the forces of the stage tables.
 
+    Post-tensioned girders: Pi and Pe are the tendon forces at the station just after
+    stressing and after all losses (friction, anchor set, elastic shortening and the
+    time-dependent losses; the forces of the stage tables), e is that of the cgs of the
+    initial forces at the station (``StationResult.cgs``), and the release lines are written,
+    as the check does, on the section carrying the prestress at stressing (the girder net of
+    the open ducts, area An, inertia In, centroid ybn): with d = ybn − yb and
+    s = (y − ybn)/In at the fiber, f = −P/An + P (e + d) s − M s, still linear in e and 1/Pi.
+    The cgs of the effective forces lies slightly off that of the initial ones (the tendons
+    lose different stresses): the service lines take e + d with d = cgs,i − cgs,e, the shift
+    moving both alike. The axes stay those of the gross section.
+
     Args:
         result: the check.
         station: a station name (default "midspan"); one of the names of a merged station or
@@ -735,23 +798,52 @@ def magnel_lines(result: CheckResult, station: str | None = None) -> MagnelSetup
     gross = g.gross
     A, I, yb, yt = gross.area, gross.Ix, gross.yb, gross.yt
     Zt, Zb = I / yt, I / yb
-    if job.layout is None:
-        raise InputError("a pretensioned strand layout for the Magnel diagram", field="strands")
-    area = float(job.layout.effective_area(np.array([st.x]))[0])
-    if area <= 0.0:
-        raise InputError(
-            "a station where the prestress is developed", field="station", got=repr(st.name)
-        )
-    P_i = result.losses.f_pt * area
-    P_e = result.losses.f_pe * area
-    cgs = st.cgs if st.cgs is not None else float(job.layout.cgs(np.array([st.x]))[0])
+    # per stage: (area, signed (y − yc)/I at each girder fiber, n at the fiber, yc − yb)
+    gross_sec = (A, {"girder_top": 1.0 / Zt, "girder_bottom": -1.0 / Zb}, {}, 0.0)
+    release_sec = gross_sec
+    if job.post_tensioned:
+        from prestress.stages import prestress_at
+
+        xs = np.array([st.x])
+        P_i = float(prestress_at(g, result.losses, "transfer", xs)[0][0])
+        P_e, cgs_e = (float(v[0]) for v in prestress_at(g, result.losses, "final", xs)[:2])
+        if P_i <= 0.0:
+            raise InputError(
+                "a station on the tendons (a prestress force there)",
+                field="station",
+                got=repr(st.name),
+            )
+        net = g.section_transfer
+        if net is not None:
+            release_sec = (
+                net.area,
+                {f: net.c(f) / net.I for f in ("girder_top", "girder_bottom")},
+                net.n_fiber,
+                net.yb - yb,
+            )
+        cgs = st.cgs if st.cgs is not None else float(job.cgs_geometric(xs)[0])
+        # the cgs of the effective forces lies a little off that of the initial ones (the
+        # tendons lose different stresses); a shift of the layout moves both alike
+        gross_sec = (*gross_sec[:3], cgs - cgs_e)
+    else:
+        if job.layout is None:
+            raise InputError(
+                "a strand layout (strand sets) for the Magnel diagram", field="strands"
+            )
+        area = float(job.layout.effective_area(np.array([st.x]))[0])
+        if area <= 0.0:
+            raise InputError(
+                "a station where the prestress is developed", field="station", got=repr(st.name)
+            )
+        P_i = result.losses.f_pt * area
+        P_e = result.losses.f_pe * area
+        cgs = st.cgs if st.cgs is not None else float(job.layout.cgs(np.array([st.x]))[0])
     e = yb - cgs
     comp = g.composite_section
     ratio = {  # composite moment → equivalent moment on the girder section, per fiber
         "girder_top": Zt / comp.S("girder_top") if comp is not None else 1.0,
         "girder_bottom": Zb / comp.S("girder_bottom") if comp is not None else 1.0,
     }
-    s_of = {"girder_top": 1.0 / Zt, "girder_bottom": -1.0 / Zb}  # signed (y − yb)/I
     from prestress.stages import COMPOSITE_LOADS
 
     lines: list[MagnelLine] = []
@@ -773,6 +865,7 @@ def magnel_lines(result: CheckResult, station: str | None = None) -> MagnelSetup
         if here is None:
             continue
         R = 1.0 if stage.key == "transfer" else P_e / P_i
+        A_s, s_of, n_of, d = release_sec if stage.key == "transfer" else gross_sec
         M_nc = sum(v for k, v in here.moments.items() if k not in COMPOSITE_LOADS)
         M_c = sum(v for k, v in here.moments.items() if k in COMPOSITE_LOADS)
         for fiber, sense in wanted[stage.key]:
@@ -784,17 +877,22 @@ def magnel_lines(result: CheckResult, station: str | None = None) -> MagnelSetup
                 continue
             M = M_nc + M_c * ratio[fiber]
             s = s_of[fiber]
+            n = n_of.get(fiber, 1.0)
             # a stress that does not depend on the prestress (deck shrinkage) uses up the limit
             lim_free = lim - (shrink.get(fiber, 0.0) if stage.key in _SERVICE_STAGES else 0.0)
-            # f = R Pi (−1/A + e s) − M s; divided by Pi:  R(−1/A + e s) − M s u  vs  lim u
-            if sense == "tension":  # R(−1/A + e s) − (lim + M s) u ≤ 0
-                a, b, c = -R / A, R * s, -(lim_free + M * s)
-            else:  # (lim + M s) u − R(−1/A + e s) ≤ 0
-                a, b, c = R / A, -R * s, lim_free + M * s
+            # f = n [R Pi (−1/A + (e + d) s) − M s]; divided by Pi:
+            #     n R(−1/A + d s) + n R s e − n M s u  vs  lim u   (d = 0, n = 1 on gross)
+            if sense == "tension":  # n R(−1/A + d s + e s) − (lim + n M s) u ≤ 0
+                a, b, c = n * R * (-1.0 / A_s + d * s), n * R * s, -(lim_free + n * M * s)
+            else:  # (lim + n M s) u − n R(−1/A + d s + e s) ≤ 0
+                a, b, c = n * R * (1.0 / A_s - d * s), -n * R * s, lim_free + n * M * s
             where = FIBER_NAMES[fiber].replace("girder ", "")
+            when = _SHORT[stage.key]
+            if stage.key == "transfer" and job.post_tensioned:
+                when = "stressing"
             lines.append(
                 MagnelLine(
-                    f"{_SHORT[stage.key]}, {where} {sense}",
+                    f"{when}, {where} {sense}",
                     stage.key,
                     fiber,
                     sense,
@@ -1004,12 +1102,18 @@ def plot_magnel(
     ax.legend(
         fontsize=_FONT - 1, loc="upper center", bbox_to_anchor=(0.5, -0.12), ncol=1, frameon=False
     )
+    net = (
+        " (release lines on the girder net of the open ducts, as in the check)\n"
+        if result.girder.job.post_tensioned
+        else "; "
+    )
     fig.text(
         0.1,
         0.01,
-        f"Gross girder section; R = Pe/Pi = {setup.R:.3f}; composite moments converted to the "
-        f"girder section by Z/Sc; {SIGN_CONVENTION}.",
+        f"Gross girder section{net}R = Pe/Pi = {setup.R:.3f}; composite moments converted to "
+        f"the girder section by Z/Sc; {SIGN_CONVENTION}.",
         fontsize=_FONT - 1,
+        va="bottom",
     )
     return _save(fig, path)
 

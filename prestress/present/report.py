@@ -4,13 +4,15 @@ The report holds everything a checking engineer needs to follow the calculation 
 tool: every input as the tool understood it (with units), the section properties with the
 section drawn to scale, each loss with its formula, the values substituted and its clause,
 the stress tables of every stage with limits and utilisation, the governing checks, the
-permissible zone of the cgs, the plots, and its provenance (software version, SHA-256 of the
-job file, date). The safety caution stands at the top and at the end.
+permissible zone of the cgs, the plots, and its provenance (software version, date, and the
+SHA-256 and text of every file the check read: the job file, the limit-set file and the
+section library file). The safety caution stands at the top and at the end.
 
 The HTML is polyglot XHTML (well formed as XML, served as HTML): CSS inside the file, plots
 as inline SVG, no external resources and no JavaScript; it prints on A4 or Letter. Every
 string that comes from the user is escaped. The Markdown variant (for a ``.md`` path) has
-the same content, the plots as SVG data URIs.
+the same content, the plots written beside it as SVG files and linked (:func:`write_report`;
+:func:`render_markdown` alone embeds them as SVG data URIs).
 
 The document is built once as a list of plain blocks (headings, paragraphs, tables, figures)
 and rendered to either format.
@@ -27,6 +29,7 @@ import tempfile
 from collections.abc import Callable, Iterable, Sequence
 from dataclasses import dataclass, field
 from pathlib import Path
+from typing import TYPE_CHECKING
 
 from prestress import __version__
 from prestress.analysis import SIGN_CONVENTION, CheckResult, FiberResult, StageResult
@@ -42,6 +45,10 @@ from prestress.present.common import (
     signed,
     value,
 )
+
+if TYPE_CHECKING:
+    from prestress.losses.post_tensioned import TendonState
+    from prestress.model import Tendon
 
 # ------------------------------------------------------------------------------------------
 # Blocks of the document
@@ -160,6 +167,12 @@ def _ratio(v: float) -> str:
     return text.replace("-", "−") if text.startswith("-") else text
 
 
+def _coefficient(v: float) -> str:
+    """A small coefficient as written by an engineer: 0.0002, else a × 10⁻ⁿ."""
+    text = f"{v:.4g}"
+    return _ratio(v) if "e" in text else text
+
+
 def _strength(stage: StageResult, system: str) -> str:
     """The stage's strength (stored as "f'ci = 44.8 MPa") in the output units."""
     sym, _, rest = stage.strength_text.partition(" = ")
@@ -184,6 +197,94 @@ def _figure_text(name: str, v: float, role: str, system: str) -> str:
 
 # ------------------------------------------------------------------------------------------
 # Inputs
+
+
+_JACKED = {"left": "left end", "right": "right end", "both": "both ends"}
+
+
+def _tendon_inputs(result: CheckResult, system: str) -> list:
+    """The post-tensioned tendons as given: stressing, friction, set, duct, jack; profiles."""
+    from prestress.units import out_unit
+
+    job = result.girder.job
+    su, du, au = label(system, "stress"), label(system, "dimension"), label(system, "area")
+    pu = label(system, "position")
+    per = out_unit(system, "position")
+    rows = []
+    for t in job.tendons:
+        rows.append(
+            (
+                _c(t.name),
+                _n(t.strands),
+                _n(_f(t.area, system, "area")),
+                _n(_f(t.jacking_stress, system, "stress", 1)),
+                _c(_JACKED.get(t.jacking, t.jacking)),
+                _n(f"{t.mu:g}"),
+                _n(_coefficient(t.K * per.factor)),
+                _n(_f(t.anchor_set, system, "dimension")),
+                _n(_f(t.duct_diameter, system, "dimension", 2)),
+                _n(_f(t.jack_length, system, "dimension", 2)),
+            )
+        )
+    blocks: list = [
+        Table(
+            (
+                "Tendon",
+                "Strands",
+                f"Aps ({au})",
+                f"Jacking stress fpj ({su})",
+                "Jacked at",
+                "μ (per rad)",
+                f"Wobble K (per {pu})",
+                f"Anchor set ({du})",
+                f"Duct diameter, outside ({du})",
+                f"Jack length ({du})",
+            ),
+            tuple(rows),
+            "Post-tensioned tendons as given, each of the strand type above, jacked at its own "
+            "stress fpj (the [strand] jacking stress of the job file does not apply to them); "
+            "μ: curvature friction coefficient; K: wobble coefficient per length of tendon; "
+            "jack length: free strand from the anchorage to the jack's grip (in the jack "
+            "elongation).",
+            "wide",
+        )
+    ]
+    prof_rows = []
+    for t in job.tendons:
+        prof = t.profile()
+        points = "; ".join(
+            f"({_f(x, system, 'position', 2)}, {_f(y, system, 'dimension', 2)})"
+            for x, y in zip(t.x, t.y, strict=True)
+        )
+        infl = "—"
+        if isinstance(prof.inflection_fraction, tuple) and prof.inflection_fraction:
+            infl = ", ".join(f"{v:g}" for v in prof.inflection_fraction)
+        prof_rows.append(
+            (
+                _c(t.name),
+                _c(points),
+                _n(infl),
+                _n(_f(prof.tendon_length_mm, system, "position", 2)),
+                _n(f"{prof.total_angular_change_rad:.4f}"),
+            )
+        )
+    blocks.append(
+        Table(
+            (
+                "Tendon",
+                f"Control points (x {pu} from the left end, height {du} above the bottom)",
+                "Inflection fraction",
+                f"Length along the tendon ({pu})",
+                "Total angle change α (rad)",
+            ),
+            tuple(prof_rows),
+            "Tendon profiles: parabolas through the control points (anchorages at the first "
+            "and last; a horizontal tangent at every interior point; reverse curves between "
+            "interior points inflect at the given fraction of their distance from the high "
+            "point). Length and angle change from anchorage to anchorage along that profile.",
+        )
+    )
+    return blocks
 
 
 def _inputs(result: CheckResult, system: str) -> Section:
@@ -220,12 +321,13 @@ def _inputs(result: CheckResult, system: str) -> Section:
     ]
     if job.spacing is not None:
         rows.append(("Girder spacing", _q(job.spacing, system, "dimension")))
-    rows.append(
-        (
-            "Transfer length",
-            f"{_q(job.transfer_length, system, 'dimension')} ({job.transfer_length_source})",
+    if not job.post_tensioned:  # the tendons are anchored: no transfer length
+        rows.append(
+            (
+                "Transfer length",
+                f"{_q(job.transfer_length, system, 'dimension')} ({job.transfer_length_source})",
+            )
         )
-    )
     rows.append(("Section basis of the stresses", job.loss_basis))
     b.append(_kv(rows))
     gc = job.girder_concrete
@@ -274,23 +376,35 @@ def _inputs(result: CheckResult, system: str) -> Section:
         )
     st = job.strand
     b.append(Heading(3, "Strand", "inputs-strand"))
-    b.append(
-        _kv(
-            [
-                ("Diameter", _q(st.diameter, system, "dimension")),
-                ("Area of one strand", _q(st.area, system, "area")),
-                ("fpu", _q(st.fpu, system, "stress")),
-                ("fpy", _q(st.fpy, system, "stress")),
-                ("Ep", _q(st.Ep, system, "modulus_e")),
-                ("Relaxation class", st.relaxation),
-                ("Jacking stress fpj", _q(st.jacking_stress, system, "stress")),
-                ("Stress before transfer fpbt", _q(st.stress_before_transfer, system, "stress")),
-                ("Number of strands", str(job.strand_count)),
-                ("Total area Aps", _q(job.A_ps, system, "area")),
-                ("Strand centroid at midlength (above bottom)", _q(job.y_ps, system, "dimension")),
-            ]
-        )
-    )
+    strand_rows = [
+        ("Diameter", _q(st.diameter, system, "dimension")),
+        ("Area of one strand", _q(st.area, system, "area")),
+        ("fpu", _q(st.fpu, system, "stress")),
+        ("fpy", _q(st.fpy, system, "stress")),
+        ("Ep", _q(st.Ep, system, "modulus_e")),
+        ("Relaxation class", st.relaxation),
+    ]
+    if job.post_tensioned:
+        strand_rows += [
+            (
+                "Strands in the tendons",
+                f"{sum(t.strands for t in job.tendons)} in {len(job.tendons)} tendon(s)",
+            ),
+            ("Total area Aps", _q(job.A_ps, system, "area")),
+            (
+                "Tendon centroid at midlength (above bottom)",
+                _q(job.y_ps, system, "dimension"),
+            ),
+        ]
+    else:
+        strand_rows += [
+            ("Jacking stress fpj", _q(st.jacking_stress, system, "stress")),
+            ("Stress before transfer fpbt", _q(st.stress_before_transfer, system, "stress")),
+            ("Number of strands", str(job.strand_count)),
+            ("Total area Aps", _q(job.A_ps, system, "area")),
+            ("Strand centroid at midlength (above bottom)", _q(job.y_ps, system, "dimension")),
+        ]
+    b.append(_kv(strand_rows))
     if job.rows:
         du = label(system, "dimension")
         rows_t = []
@@ -371,24 +485,9 @@ def _inputs(result: CheckResult, system: str) -> Section:
                 "The strand sets of the layout as analysed (each a path and a bond length).",
             )
         )
-    tendons = getattr(job, "tendons", ())
-    if tendons:
-        b.append(
-            Table(
-                ("Tendon", "Strands", "Area", "Control points x", "Control points y"),
-                tuple(
-                    (
-                        _c(t.name),
-                        _n(t.strands),
-                        _n(_q(t.area, system, "area")),
-                        _c(", ".join(_f(x, system, "position", 2) for x in t.x)),
-                        _c(", ".join(_f(y, system, "dimension", 2) for y in t.y)),
-                    )
-                    for t in tendons
-                ),
-                "Post-tensioned tendons.",
-            )
-        )
+    if job.tendons:
+        b.append(Heading(3, "Tendons", "inputs-tendons"))
+        b += _tendon_inputs(result, system)
     lo = job.loads
     live = lo.live
     b.append(Heading(3, "Loads", "inputs-loads"))
@@ -439,8 +538,10 @@ def _inputs(result: CheckResult, system: str) -> Section:
             ("Live-load moment at midspan (given)", _q(live.moment_midspan, system, "moment"))
         )
     b.append(_kv(rows))
+    titles = {st.key: st.title for st in result.stages}
     combos = [
-        (f"{k}", f"dead × {c.dead:g}, live × {c.live:g}") for k, c in job.combinations.items()
+        (titles.get(k, k.replace("_", " ")), f"dead × {c.dead:g}, live × {c.live:g}")
+        for k, c in job.combinations.items()
     ]
     if combos:
         b.append(_kv(combos, "Load factors of the service combinations."))
@@ -544,7 +645,7 @@ def _section(result: CheckResult, system: str, drawing: str | None) -> Section:
     row("Top flange width", gross.top_width, None, "dimension")
     row("Girder self-weight", g.self_weight, None, "line_load")
     row(
-        "Strand eccentricity at midlength",
+        ("Tendon" if g.job.post_tensioned else "Strand") + " eccentricity at midlength",
         g.eccentricity_gross,
         (c.yb - g.job.y_ps) if c else None,
         "dimension",
@@ -592,8 +693,14 @@ def _section(result: CheckResult, system: str, drawing: str | None) -> Section:
         sec.blocks.append(
             Figure(
                 drawing,
-                "The girder section to scale with its strands at midlength and the "
-                "deck (principal dimensions; the centroid marked).",
+                "The girder section to scale with its "
+                + (
+                    "tendons at midlength (each tendon's strands drawn at its duct's centre, "
+                    "the ducts on the girder axis)"
+                    if g.job.post_tensioned
+                    else "strands at midlength"
+                )
+                + " and the deck (principal dimensions; the centroid marked).",
                 "fig-section",
             )
         )
@@ -611,10 +718,167 @@ class _Desc(str):
 _ES_CLOSED = "ΔfpES = [Aps fpbt (Ig + em² Ag) − em Mg Ag] / [Aps (Ig + em² Ag) + Ag Ig Eci / Ep]"
 
 
+def _midlength_end(t: Tendon, xm: float) -> str:
+    """The anchorage whose jack governs the stress at xm.
+
+    The jacked end; for a tendon jacked at both ends, the one giving the smaller friction
+    loss there.
+    """
+    if t.jacking in ("left", "right"):
+        return t.jacking
+    prof = t.profile()
+    loss = {
+        end: t.K * float(prof.length_along(xm, end)) + t.mu * float(prof.angular_change(xm, end))
+        for end in ("left", "right")
+    }
+    return min(loss, key=lambda end: loss[end])
+
+
+def _pt_friction(result: CheckResult, system: str) -> list[str]:
+    """Eq. 5.9.3.2.2b-1 at the girder's midlength, with the values of every tendon."""
+    import math
+
+    from prestress.units import out_unit
+
+    job = result.girder.job
+    xm = job.length / 2.0
+    per = out_unit(system, "position")
+    pu = label(system, "position")
+    lines: list[str] = [
+        "ΔfpF = fpj (1 − e^−(Kx + μα))   (Eq. 5.9.3.2.2b-1)",
+        _Desc(
+            f"at the girder's midlength (x = {_q(xm, system, 'position')} from the left end), "
+            "per tendon: x the length along the tendon from the jacking end, α the sum of the "
+            "absolute changes of the tendon's angle over that length (parabolic profile, exact "
+            "arc length and angles); the girder's loss is the tendons' area-weighted mean"
+        ),
+    ]
+    total_a, total = 0.0, 0.0
+    for t in job.tendons:
+        prof = t.profile()
+        if not prof.x_start_mm <= xm <= prof.x_end_mm:
+            lines.append(_Desc(f"{t.name}: does not reach midlength"))
+            continue
+        end = _midlength_end(t, xm)
+        x = float(prof.length_along(xm, end))
+        alpha = float(prof.angular_change(xm, end))
+        exponent = t.K * x + t.mu * alpha
+        loss = t.jacking_stress * (1.0 - math.exp(-exponent))
+        total_a += t.area
+        total += t.area * loss
+        lines.append(
+            _Desc(
+                f"{t.name} (jacked from the {end} end): fpj = "
+                f"{_q(t.jacking_stress, system, 'stress')}, "
+                f"K = {_coefficient(t.K * per.factor)} per {pu}, "
+                f"x = {_q(x, system, 'position')}, μ = {t.mu:g}, α = {alpha:.4f} rad; "
+                f"Kx + μα = {exponent:.5f}; ΔfpF = {_q(loss, system, 'stress', 2)}"
+            )
+        )
+    if len(job.tendons) > 1 and total_a > 0:
+        lines.append(
+            _Desc(
+                "area-weighted mean: ΔfpF = Σ Aps,i ΔfpF,i / Σ Aps,i = "
+                f"{_q(total / total_a, system, 'stress', 2)}"
+            )
+        )
+    return lines
+
+
+def _pt_anchor_set(
+    result: CheckResult, system: str, states: list[TendonState] | None = None
+) -> list[str]:
+    """The anchor set by the area method: per tendon the affected length and the losses."""
+    import numpy as np
+
+    from prestress.losses.post_tensioned import tendon_states
+
+    g = result.girder
+    job = g.job
+    xm = job.length / 2.0
+    states = tendon_states(g) if states is None else states
+    pu = label(system, "position")
+    lines: list[str] = [
+        "Δset = (2/Ep) ∫ [fpx(s) − fpx(xset)] ds over the affected length, s along the tendon "
+        "(area method)",
+        _Desc(
+            "by the area method on the friction curve (no closed-form expression for a "
+            "parabolic profile): the stress after set is the mirror image of the friction "
+            "curve about its value at the end xset of the affected length, and xset is found "
+            "so that the strand shortening over that length equals the anchor set Δset; where "
+            "the set is not absorbed before the far end (or the neutral point), the whole "
+            "mirror image is lowered by a uniform amount; "
+            f"Ep = {_q(job.strand.Ep, system, 'modulus_e')}"
+        ),
+    ]
+    for s in states:
+        t = s.tendon
+        at_mid = float(np.interp(xm, s.x, s.after_friction - s.after_set))
+        zones = []
+        for z in s.set_zones:
+            side = "left" if z.x_anchor_mm <= float(s.x[0]) else "right"
+            length = abs(z.x_set_mm - z.x_anchor_mm)
+            text = (
+                f"from the {side} anchorage: affected length {_f(length, system, 'position', 2)}"
+                f" {pu}, loss at the anchorage {_q(z.loss_at_anchor_MPa, system, 'stress', 2)}"
+            )
+            if z.reaches_limit:
+                where = "the neutral point" if s.neutral_point is not None else "the far end"
+                text += (
+                    f" (the set reaches {where}; loss there "
+                    f"{_q(z.loss_at_x_set_MPa, system, 'stress', 2)})"
+                )
+            zones.append(text)
+        body = "; ".join(zones) if zones and t.anchor_set > 0 else "no anchor set"
+        lines.append(
+            _Desc(
+                f"{t.name}: Δset = {_q(t.anchor_set, system, 'dimension')}; {body}; loss at "
+                f"midlength {_q(at_mid, system, 'stress', 2)}"
+            )
+        )
+    if len(states) > 1:
+        lines.append(_Desc("the girder's loss at midlength is the tendons' area-weighted mean"))
+    return lines
+
+
+def _given_long_term(comp: LossComponent, result: CheckResult, system: str) -> list[str]:
+    """Time-dependent losses entered by the engineer: which job-file values they are."""
+    job = result.girder.job
+    given = job.long_term_given
+    if given is None:
+        return [_Desc("given by the engineer in the job file (not computed by the tool)")]
+    final, to_deck = given
+    start = "stressing" if job.post_tensioned else "transfer"
+    if comp.key == "long_term_after_deck" and to_deck is not None:
+        text = (
+            "given by the engineer, not computed by the tool: from deck placement to the final "
+            f"age, [losses] long_term − long_term_to_deck = {_q(final, system, 'stress', 2)} − "
+            f"{_q(to_deck, system, 'stress', 2)}"
+        )
+    elif comp.period == "transfer to deck placement" and to_deck is not None:
+        text = (
+            f"given by the engineer, not computed by the tool: from {start} to deck placement, "
+            f"[losses] long_term_to_deck = {_q(to_deck, system, 'stress', 2)}"
+        )
+    else:
+        text = (
+            f"given by the engineer, not computed by the tool: from {start} to the final age, "
+            f"[losses] long_term = {_q(final, system, 'stress', 2)}"
+        )
+    return [_Desc(text)]
+
+
 def _loss_formula(
-    comp: LossComponent, result: CheckResult, system: str
+    comp: LossComponent,
+    result: CheckResult,
+    system: str,
+    states: list[TendonState] | None = None,
 ) -> tuple[list[str], list[str]]:
-    """The formula lines of a loss component and the values substituted in it."""
+    """The formula lines of a loss component and the values substituted in it.
+
+    ``states``: the tendons' stresses after friction and anchor set of a post-tensioned job
+    (:func:`prestress.losses.post_tensioned.tendon_states`), computed here when not given.
+    """
     b = result.losses
     job = result.girder.job
     fig = b.figures
@@ -633,6 +897,30 @@ def _loss_formula(
     approximate = "5.9.3.3" in comp.clause
     refined = "5.9.3.4" in comp.clause
     Ep = _q(job.strand.Ep, system, "modulus_e")
+    if job.post_tensioned and key == "friction" and "5.9.3.2.2b-1" in comp.clause:
+        return _pt_friction(result, system), []
+    if job.post_tensioned and key == "anchor_set":
+        return _pt_anchor_set(result, system, states), []
+    if key == "elastic_shortening" and "5.9.3.2.3b-1" in comp.clause:
+        return (
+            [
+                "ΔfpES = (N − 1)/(2N) (Ep/Eci) fcgp   (Eq. 5.9.3.2.3b-1)",
+                _Desc(
+                    "N tendons stressed one after another; fcgp: the concrete stress at the "
+                    "tendons' centroid at midlength from the tendon forces after friction and "
+                    "anchor set and the girder's self-weight, on the section at stressing "
+                    "(compression positive; 5.9.3.2.3a)"
+                ),
+            ],
+            vals(
+                f"N = {len(job.tendons)}",
+                f"Ep = {Ep}",
+                f"Eci = {_q(job.girder_concrete.Eci, system, 'modulus_e')}",
+                f("fcgp (midlength)", "fcgp"),
+            ),
+        )
+    if comp.clause == "given in the job" and key in ("long_term", "long_term_after_deck"):
+        return _given_long_term(comp, result, system), []
     if key == "before_transfer":
         return (
             ["fpj − fpbt  (losses in the bed before transfer, as given in the job)"],
@@ -838,9 +1126,22 @@ def _losses(result: CheckResult, system: str) -> Section:
         )
     )
     fpj = b.jacking_stress
+    states = None
+    if result.girder.job.post_tensioned:
+        from prestress.losses.post_tensioned import tendon_states
+
+        states = tendon_states(result.girder)
+        blocks.append(
+            Para(
+                "The tendons' stresses vary along the girder (friction and anchor set): the "
+                "losses at transfer below are those at the girder's midlength, as the "
+                "tendons' area-weighted mean, and fpj is their area-weighted jacking stress; "
+                "the stage tables use each tendon's stress at each station."
+            )
+        )
     for i, comp in enumerate(b.components, 1):
         blocks.append(Heading(3, f"{i}. {comp.label} ({comp.period})", f"loss-{i}-{comp.key}"))
-        lines, subs = _loss_formula(comp, result, system)
+        lines, subs = _loss_formula(comp, result, system, states)
         for ln in lines:
             blocks.append(Para(ln, "subst" if isinstance(ln, _Desc) else "formula"))
         if subs:
@@ -918,9 +1219,60 @@ def _losses(result: CheckResult, system: str) -> Section:
                 "Intermediate figures as computed by the method.",
             )
         )
+    if states is not None:
+        blocks += _tendon_limits(result, system, states)
     for n in b.notes:
         blocks.append(Para(f"Note: {n}", "note"))
     return sec
+
+
+_LIMIT_ROWS = {
+    "prior_to_seating": "jacking, prior to seating",
+    "anchorage_after_set": "at an anchorage, after set",
+    "elsewhere_after_set": "away from the anchorages, after set",
+    "service": "service, after all losses",
+}
+
+
+def _tendon_limits(result: CheckResult, system: str, states: list[TendonState]) -> list:
+    """The tendon stresses against AASHTO LRFD 9th Ed. (2020) Table 5.9.2.2-1, one row each."""
+    from prestress.losses.post_tensioned import LIMITS_SOURCE, tendon_limit_checks
+
+    su, pu = label(system, "stress"), label(system, "position")
+    rows = []
+    for c in tendon_limit_checks(result.girder, states):
+        cls = "ok" if c.ok else "fail"
+        rows.append(
+            (
+                _c(c.tendon),
+                _c(_LIMIT_ROWS.get(c.key, c.condition)),
+                _c(c.where),
+                _n(_f(c.x, system, "position", 2)),
+                _n(_f(c.stress, system, "stress", 1)),
+                _n(f"{c.limit_text} = {_f(c.limit, system, 'stress', 1)}"),
+                Cell(f"{c.ratio:.2f}", f"num {cls}"),
+                _c("ok" if c.ok else "EXCEEDED", cls),
+            )
+        )
+    return [
+        Heading(3, "Tendon stress limits", "losses-tendon-limits"),
+        Table(
+            (
+                "Tendon",
+                "Condition",
+                "Where",
+                f"x ({pu})",
+                f"Stress ({su})",
+                f"Limit ({su})",
+                "Ratio",
+                "Check",
+            ),
+            tuple(rows),
+            f"{LIMITS_SOURCE}. x from the left end. After set: immediately after anchor set; "
+            "after all losses: after anchor set, elastic shortening and the final "
+            "time-dependent losses given in the job.",
+        ),
+    ]
 
 
 # ------------------------------------------------------------------------------------------
@@ -1228,6 +1580,7 @@ def _plots(result: CheckResult, system: str) -> tuple[str | None, Section]:
         drawing = _svg_of(lambda p: plots.plot_section(result, p, system))
     except (InputError, ValueError) as exc:  # a shape that cannot be drawn
         sec.blocks.append(Para(f"The section could not be drawn: {exc}", "note"))
+    pt = result.girder.job.post_tensioned
     items = [
         (
             "fig-stresses",
@@ -1236,21 +1589,22 @@ def _plots(result: CheckResult, system: str) -> tuple[str | None, Section]:
         ),
         (
             "fig-zone",
-            "Permissible zone of the cgs along the girder, with the cgs, hold-downs "
-            "and debond ends.",
+            "Permissible zone of the cgs along the girder, with the cgs"
+            + (" and the tendon profiles." if pt else ", hold-downs and debond ends."),
             plots.plot_zone,
         ),
         (
             "fig-losses",
-            "Strand stress against the age of the girder (log scale) at the "
-            "milestones of the loss method.",
+            ("Tendon stress at midlength" if pt else "Strand stress")
+            + " against the age of the girder (log scale) at the milestones of the loss method.",
             plots.plot_losses,
         ),
         (
             "fig-magnel",
-            "Magnel diagram at midspan: the stress inequalities at release and in "
-            "final service in the (e, 1/Pi) plane, the feasible region shaded and the design "
-            "point marked.",
+            "Magnel diagram at midspan: the stress inequalities at "
+            + ("stressing" if pt else "release")
+            + " and in final service in the (e, 1/Pi) plane, the feasible region shaded and "
+            "the design point marked.",
             plots.plot_magnel,
         ),
     ]
@@ -1262,6 +1616,103 @@ def _plots(result: CheckResult, system: str) -> tuple[str | None, Section]:
             continue
         sec.blocks.append(Figure(svg, caption, fid))
     return drawing, sec
+
+
+# ------------------------------------------------------------------------------------------
+# Provenance: the files the check read
+
+
+@dataclass(frozen=True)
+class InputFile:
+    """A file the check read besides the job file, for the provenance and the appendices.
+
+    Attributes:
+        role: what it is, e.g. "limit-set file".
+        description: where it comes from, in words.
+        path: the file, or None when the data sit in the job file or the file is not known.
+        data: its bytes as read now (None without a file).
+    """
+
+    role: str
+    description: str
+    path: Path | None = None
+    data: bytes | None = None
+
+    @property
+    def sha256(self) -> str:
+        """SHA-256 of the bytes ('' without a file)."""
+        return hashlib.sha256(self.data).hexdigest() if self.data is not None else ""
+
+
+def _read(role: str, description: str, path: Path) -> InputFile:
+    try:
+        return InputFile(role, description, path, path.read_bytes())
+    except OSError as exc:
+        return InputFile(role, f"{description}; the file could not be read ({exc.strerror})")
+
+
+def limits_file(result: CheckResult) -> InputFile:
+    """The limit-set file of the job, found as the job reader finds it.
+
+    ``[limits] set = "name"``: the shipped ``examples/limits/<name>.toml``; ``[limits] file``:
+    that path, relative to the job file's folder; otherwise the limits are inline in the job
+    file. The job file's ``[limits]`` table is read again with the project's TOML reader.
+    """
+    from prestress.paths import shipped_examples_dir
+    from prestress.tomlread import read_toml
+
+    job = result.girder.job
+    role = "limit-set file"
+    try:
+        lim = read_toml(job.file).get("limits")
+    except InputError:
+        return InputFile(role, "not known (the job file could not be read again)")
+    if isinstance(lim, dict) and isinstance(lim.get("set"), str):
+        name = lim["set"]
+        path = shipped_examples_dir() / "limits" / f"{name}.toml"
+        return _read(role, f"shipped limit set '{name}' ([limits] set)", path)
+    if isinstance(lim, dict) and isinstance(lim.get("file"), str):
+        ref = Path(lim["file"])
+        path = ref if ref.is_absolute() else Path(job.file).parent / ref
+        return _read(role, "[limits] file of the job", path)
+    return InputFile(role, "given inline in the job file ([limits])")
+
+
+def section_file(result: CheckResult) -> InputFile:
+    """Where the girder's section definition was read: the job file or a library file.
+
+    A library section is looked up again in the job's library folders, the folders of
+    ``PRESTRESS_SECTIONS`` and the shipped library; the entry found is taken as the one used
+    only when its outline is the girder's (a folder given with ``--library`` is not known
+    here, so a shape found only there is reported as such).
+    """
+    from prestress.sections.library import load_library, search_folders
+    from prestress.sections.properties import resolve_definition
+
+    g = result.girder
+    job = g.job
+    role = "section library file"
+    if job.section.family is not None:
+        return InputFile(role, "defined in the job file ([girder.section])")
+    try:
+        lib = load_library(search_folders(job.library_paths))
+        entry = lib.entries.get(job.section.name.lower())
+        same = entry is not None and (
+            resolve_definition(
+                entry.family, entry.dimensions, file=entry.file, field=entry.field
+            ).exterior
+            == g.outline.exterior
+        )
+    except InputError:
+        entry, same = None, False
+    if entry is None or not same:
+        return InputFile(
+            role,
+            "not found again in the job's library folders, PRESTRESS_SECTIONS or the shipped "
+            "library (a folder given with --library?)",
+        )
+    where = "shipped library" if entry.shipped else "user library"
+    return _read(role, f"{where}, entry {entry.field} '{entry.name}'", Path(entry.file))
 
 
 # ------------------------------------------------------------------------------------------
@@ -1292,6 +1743,7 @@ def build(
     job = result.girder.job
     when = (generated or _dt.datetime.now(_dt.UTC)).replace(microsecond=0)
     sha = hashlib.sha256(job_text).hexdigest()
+    lim_file, sec_file = limits_file(result), section_file(result)
     provenance = {
         "Software": f"prestress {__version__}",
         "Job file": job.file,
@@ -1299,8 +1751,21 @@ def build(
         "Generated": when.isoformat(),
         "Output units": system,
         "Loss method": result.losses.method,
-        "Limit set": job.limits.name,
+        "Limit set": f"{job.limits.name} — {job.limits.source}",
+        "Limit-set file": str(lim_file.path) if lim_file.path else lim_file.description,
     }
+    if lim_file.path is not None:
+        provenance["Limit set read from"] = lim_file.description
+        provenance["SHA-256 of the limit-set file"] = lim_file.sha256
+    g = result.girder
+    from prestress.sections.families import FAMILIES
+
+    family = FAMILIES[g.family].title if g.family in FAMILIES else "family not recorded"
+    provenance["Section"] = f"{g.section_name} ({family}) — {g.section_source or 'no source given'}"
+    provenance["Section definition"] = sec_file.description
+    if sec_file.path is not None:
+        provenance["Section library file"] = str(sec_file.path)
+        provenance["SHA-256 of the section library file"] = sec_file.sha256
     drawing, plot_sec = _plots(result, system)
     overview = Section("overview", "Overview")
     overview.blocks.append(
@@ -1342,6 +1807,22 @@ def build(
     appendix = Section("job-file", "Appendix: the job file")
     appendix.blocks.append(Para(f"The job file as read ({len(job_text)} bytes; SHA-256 {sha})."))
     appendix.blocks.append(Pre(job_text.decode("utf-8", errors="replace")))
+    appendices = [appendix]
+    for ident, title, f in (
+        ("limits-file", "Appendix: the limit-set file", lim_file),
+        ("section-file", "Appendix: the section library file", sec_file),
+    ):
+        if f.path is None or f.data is None:
+            continue
+        extra = Section(ident, title)
+        extra.blocks.append(
+            Para(
+                f"The {f.role} {f.path} ({f.description}) as read when the report was written "
+                f"({len(f.data)} bytes; SHA-256 {f.sha256})."
+            )
+        )
+        extra.blocks.append(Pre(f.data.decode("utf-8", errors="replace")))
+        appendices.append(extra)
     sections = [
         overview,
         _inputs(result, system),
@@ -1354,7 +1835,7 @@ def build(
         plot_sec,
         notes,
         prov,
-        appendix,
+        *appendices,
     ]
     return _title(result), sections, provenance
 
@@ -1539,8 +2020,24 @@ def _md_table(t: Table) -> str:
     return "\n".join(lines)
 
 
-def render_markdown(title: str, sections: Sequence[Section]) -> str:
-    """The whole document as Markdown (plots as SVG data URIs)."""
+def figures_of(sections: Sequence[Section]) -> list[Figure]:
+    """The figures of the document, in the order they are numbered."""
+    return [b for s in sections for b in s.blocks if isinstance(b, Figure)]
+
+
+def render_markdown(
+    title: str, sections: Sequence[Section], figure_files: Sequence[str] | None = None
+) -> str:
+    """The whole document as Markdown.
+
+    Args:
+        title: the document's title.
+        sections: its sections.
+        figure_files: the names of the SVG files holding the figures, in order (relative to
+            the Markdown file; see :func:`write_report`); None embeds them as SVG data URIs.
+    """
+    from urllib.parse import quote
+
     out = [f"# {_m(title)}", "", f"> **{_m(CAUTION)}**", ""]
     n_fig = 0
     for s in sections:
@@ -1559,8 +2056,12 @@ def render_markdown(title: str, sections: Sequence[Section]) -> str:
                 out.append(_md_table(b))
             elif isinstance(b, Figure):
                 n_fig += 1
-                data = base64.b64encode(b.svg.encode("utf-8")).decode("ascii")
-                out.append(f"![Figure {n_fig}. {_m(b.caption)}](data:image/svg+xml;base64,{data})")
+                if figure_files is not None:
+                    link = quote(figure_files[n_fig - 1])
+                else:
+                    data = base64.b64encode(b.svg.encode("utf-8")).decode("ascii")
+                    link = f"data:image/svg+xml;base64,{data}"
+                out.append(f"![Figure {n_fig}. {_m(b.caption)}]({link})")
                 out.append("")
                 out.append(f"*Figure {n_fig}. {_m(b.caption)}*")
             elif isinstance(b, Pre):
@@ -1588,6 +2089,11 @@ def write_report(
 ) -> Path:
     """Write the calculation report: HTML (``.html``/``.htm``) or Markdown (``.md``), atomically.
 
+    A Markdown report ``NAME.md`` links its figures, written beside it as ``NAME-figure-1.svg``,
+    ``NAME-figure-2.svg``, … (each atomically; many Markdown viewers do not show images
+    embedded as data URIs). Every output path is checked before anything is written: none
+    may be an input file, nor exist without ``force``.
+
     Args:
         result: the check.
         path: the report file.
@@ -1600,10 +2106,10 @@ def write_report(
         The path written.
 
     Raises:
-        InputError: an unknown suffix, the path of the job file, or an existing file
-            without ``force``.
+        InputError: an unknown suffix, the path of an input file, or an existing file
+            (the report or a figure file) without ``force``.
     """
-    from prestress.atomic import write_atomic
+    from prestress.atomic import check_output_path, write_atomic
 
     target = Path(path)
     suffix = target.suffix.lower()
@@ -1627,6 +2133,16 @@ def write_report(
             got="an existing file",
         )
     title, sections, _ = build(result, job_text=job_text, system=system, generated=generated)
-    text = render_markdown(title, sections) if suffix == ".md" else render_html(title, sections)
-    write_atomic(target, text)
+    if suffix != ".md":
+        write_atomic(target, render_html(title, sections))
+        return target
+    figures = figures_of(sections)
+    names = [f"{target.stem}-figure-{i}.svg" for i in range(1, len(figures) + 1)]
+    inputs = [Path(job_file)] if job_file else []
+    inputs += [f.path for f in (limits_file(result), section_file(result)) if f.path is not None]
+    for name in names:  # refuse before writing anything
+        check_output_path(target.parent / name, inputs=inputs, force=force)
+    for name, fig in zip(names, figures, strict=True):
+        write_atomic(target.parent / name, fig.svg)
+    write_atomic(target, render_markdown(title, sections, names))
     return target
