@@ -203,7 +203,7 @@ def losses(result: CheckResult, system: str) -> Table:
             comp.label + mark,
             comp.period,
             fmt(comp.value, system, "stress", 2),
-            f"{100 * comp.value / L.jacking_stress:.1f}",
+            f"{100 * comp.value / L.jacking_stress:.1f}".replace("-", "−"),
             comp.short_clause,
         )
     t.add_section()

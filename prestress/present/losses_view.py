@@ -89,7 +89,7 @@ def stage_tables(b: LossBreakdown, A_ps: float, system: str) -> list[Table]:
                 c.label + note,
                 c.period,
                 fmt(c.value, system, "stress", 2),
-                f"{100 * c.value / b.jacking_stress:.1f}",
+                f"{100 * c.value / b.jacking_stress:.1f}".replace("-", "−"),
                 c.short_clause,
             )
         t.add_section()
