@@ -140,6 +140,12 @@ def build_parser(only: str | None = None) -> argparse.ArgumentParser:
     p.add_argument("job", help="the job file (TOML)")
     p.add_argument("--method", help="a loss method (default: the job's losses.method)")
     p.add_argument("--compare", action="store_true", help="every applicable method side by side")
+    p.add_argument(
+        "--at",
+        metavar="AGES",
+        help="time-step methods: strand and fiber stresses at midlength at these girder ages, "
+        'e.g. "28 d, 1 year, 10 years"',
+    )
     p.add_argument("--json", action="store_true", help="JSON on standard output")
     _add_common(p)
 
@@ -397,6 +403,8 @@ def cmd_losses(args: argparse.Namespace) -> int:
     girder, chosen = losses_file(args.job, method=args.method, cli_libraries=tuple(args.library))
     job = girder.job
     system = args.units or job.units
+    if args.at:
+        return _losses_history(args, girder, chosen.method, system)
     results, skipped = compare_losses(girder) if args.compare else ([chosen], [])
     if args.json:
         data = {
@@ -438,6 +446,39 @@ def cmd_losses(args: argparse.Namespace) -> int:
             console.print(t)
         for n in chosen.notes:
             console.print(f"[dim]Note: {escape(n)}[/]")
+    console.print(f"[yellow]{CAUTION}[/]")
+    return EXIT_OK
+
+
+def _losses_history(args: argparse.Namespace, girder, method: str, system: str) -> int:  # type: ignore[no-untyped-def]
+    """``prestress losses JOB --at AGES``: the time-step history at midlength."""
+    import json
+
+    from prestress.losses.timestep_method import history
+    from prestress.present import losses_view as view
+    from prestress.present.common import CAUTION
+    from prestress.present.console import make_console
+    from prestress.units import to_internal
+
+    if not method.startswith("time-step"):
+        raise InputError(
+            "a time-step method for --at (e.g. --method time-step-aashto)",
+            file="command line",
+            field="--method",
+            got=repr(method),
+        )
+    ages = tuple(
+        to_internal(a.strip(), "time", field="--at", file="command line")
+        for a in args.at.split(",")
+        if a.strip()
+    )
+    rows = history(girder, method.removeprefix("time-step-"), ages)
+    if args.json:
+        data = view.history_dict(rows, method, system) | {"caution": CAUTION}
+        sys.stdout.write(json.dumps(data, indent=2, ensure_ascii=False, allow_nan=False) + "\n")
+        return EXIT_OK
+    console = make_console()
+    console.print(view.history_table(girder, rows, method, system))
     console.print(f"[yellow]{CAUTION}[/]")
     return EXIT_OK
 

@@ -37,6 +37,7 @@ size of that overlap).
 
 from __future__ import annotations
 
+from dataclasses import dataclass
 from typing import TYPE_CHECKING, Any
 
 import numpy as np
@@ -166,8 +167,13 @@ def concrete_models(
         ) from None
 
 
-def analyse(girder: Girder, model_name: str, n_steps: int = 120):
-    """Run the time-step analysis of the girder at midlength; return (result, ages dict)."""
+def analyse(
+    girder: Girder, model_name: str, n_steps: int = 120, extra_ages: tuple[float, ...] = ()
+):
+    """Run the time-step analysis of the girder at midlength; return (result, ages dict).
+
+    ``extra_ages``: further girder ages (days, from transfer to the final age) to record.
+    """
     job = girder.job
     if job.deck is None or girder.composite_section is None:
         raise InputError(
@@ -244,7 +250,7 @@ def analyse(girder: Girder, model_name: str, n_steps: int = 120):
             parts,
             layers,
             events,
-            sorted(set(ages.values())),
+            sorted(set(ages.values()) | set(extra_ages)),
             n_steps=n_steps,
             transfer_age=t.transfer,
         )
@@ -253,6 +259,54 @@ def analyse(girder: Girder, model_name: str, n_steps: int = 120):
             f"inputs the time-step analysis accepts ({exc})", file=job.file, field="losses"
         ) from None
     return res, ages
+
+
+@dataclass(frozen=True)
+class HistoryRow:
+    """The state of the girder at midlength at one age, from the time-step analysis.
+
+    Attributes:
+        age: girder age, days.
+        strand_stress: strand stress, area-weighted over the strand layers, MPa.
+        loss: loss since jacking, fpj − strand stress, MPa.
+        fibers: fiber → concrete stress, MPa (tension +); the deck top only once the deck is
+            cast.
+    """
+
+    age: float
+    strand_stress: float
+    loss: float
+    fibers: dict[str, float]
+
+
+def history(girder: Girder, model_name: str, ages: tuple[float, ...]) -> list[HistoryRow]:
+    """Strand and concrete stresses at midlength at the given ages (days), by time steps.
+
+    The stresses are those of the time-step analysis itself: prestress, girder self-weight,
+    deck and superimposed dead load with creep, shrinkage (girder and deck) and relaxation;
+    no live load. Ages must lie from transfer to the final age of the job.
+    """
+    t = girder.job.times
+    for age in ages:
+        if not t.transfer <= age <= t.final:
+            raise InputError(
+                f"ages from transfer ({t.transfer:g} d) to the final age ({t.final:g} d)",
+                file="command line",
+                field="--at",
+                got=f"{age:g} d",
+            )
+    res, _ = analyse(girder, model_name, extra_ages=tuple(ages))
+    areas = np.array([s.total_area for s in girder.job.layout.sets])  # type: ignore[union-attr]
+    fpj = girder.job.strand.jacking_stress
+    rows = []
+    for age in ages:
+        i = res.index(age)
+        fp = _mean(res.strand_stress, i, areas)
+        fibers = {f: float(v[i, 0]) for f, v in res.concrete_stress["girder"].items()}
+        if res.part_active["deck"][i]:
+            fibers |= {f: float(v[i, 0]) for f, v in res.concrete_stress["deck"].items()}
+        rows.append(HistoryRow(age, fp, fpj - fp, fibers))
+    return rows
 
 
 def _mpa_ksi(v: float) -> str:

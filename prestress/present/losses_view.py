@@ -8,7 +8,7 @@ from rich import box
 from rich.table import Table
 
 from prestress.losses import LossBreakdown, LossComponent
-from prestress.present.common import fmt, label, quantity
+from prestress.present.common import fmt, label, quantity, signed
 
 #: Mechanisms, in the order a loss table lists them, and what they are called.
 MECHANISMS = {
@@ -317,3 +317,54 @@ def tendon_limit_table(checks: list[Any], system: str) -> Table:
             "ok" if c.ok else "[bold red]EXCEEDED[/]",
         )
     return tab
+
+
+def history_table(girder: Any, rows: list[Any], method: str, system: str) -> Table:
+    """The time-step history at midlength: strand stress, loss and fiber stresses by age."""
+    su, tu = label(system, "stress"), label(system, "time")
+    t = Table(
+        title=f"Time-step history at midlength — {method}",
+        title_justify="left",
+        title_style="bold",
+        box=box.SIMPLE_HEAD,
+        collapse_padding=True,
+        caption=f"Ages of the girder ({tu}); stresses ({su}), concrete tension +, compression "
+        "−. Loss: fpj − strand stress, the elastic gains from the later loads included (the "
+        "loss tables' totals leave them out, as the stage checks apply those loads "
+        "themselves). The analysis's own loads: prestress, girder, deck and superimposed dead "
+        "load with creep, shrinkage and relaxation; no live load. The deck top once the deck "
+        "is cast.",
+        caption_justify="left",
+    )
+    for col in ("age", "strand stress", "loss", "% fpj", "girder bottom", "girder top", "deck top"):
+        t.add_column(col, justify="right", no_wrap=True)
+    fpj = girder.job.strand.jacking_stress
+    for r in rows:
+        deck = r.fibers.get("deck_top")
+        t.add_row(
+            fmt(r.age, system, "time", 1),
+            fmt(r.strand_stress, system, "stress", 2),
+            fmt(r.loss, system, "stress", 2),
+            f"{100 * r.loss / fpj:.1f}",
+            signed(r.fibers["girder_bottom"], system, "stress"),
+            signed(r.fibers["girder_top"], system, "stress"),
+            "—" if deck is None else signed(deck, system, "stress"),
+        )
+    return t
+
+
+def history_dict(rows: list[Any], method: str, system: str) -> dict[str, Any]:
+    """The time-step history as JSON-ready data."""
+    return {
+        "units": system,
+        "method": method,
+        "history": [
+            {
+                "age": quantity(r.age, system, "time"),
+                "strand_stress": quantity(r.strand_stress, system, "stress"),
+                "loss": quantity(r.loss, system, "stress"),
+                "fibers": {k: quantity(v, system, "stress") for k, v in r.fibers.items()},
+            }
+            for r in rows
+        ],
+    }
