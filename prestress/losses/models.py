@@ -592,8 +592,41 @@ def _fib_maturity(m: Any, exponent: float) -> None:
     object.__setattr__(m, "_n", _calibrated_exponent(exponent, ratio, m.E_ci, m._E28))
 
 
+class _FibStrengthGain:
+    """Strength and modulus development shared by the fib MC2010 and EN 1992-1-1 models.
+
+    fcm(t) = βcc(tT) fcm with βcc = exp{s [1 − (28/tT)^½]} (MC2010 Eq. 5.1-50/5.1-51, EN
+    1992-1-1 Eq. 3.1/3.2) at the temperature-adjusted age tT; E(t) = E28 βcc(tT)^n (MC2010 Eq.
+    5.1-56/5.1-57, EN Eq. 3.5 with the tangent factor 1.05 of 3.1.4(2)), n calibrated to the
+    job's moduli (:func:`_fib_maturity`).
+    """
+
+    age_at_end_of_curing: float
+    _tTc: float | None
+    _fcm: float
+    _s: float
+    _E28: float
+    _n: float
+
+    @property
+    def maturity_at_end_of_curing(self) -> float:
+        """Temperature-adjusted age at the end of curing (given, fitted to f_ci, or real), d."""
+        return self.age_at_end_of_curing if self._tTc is None else self._tTc
+
+    def _tT(self, age: FloatArray) -> FloatArray:
+        return _maturity(age, self.age_at_end_of_curing, self._tTc)
+
+    def strength(self, age: ArrayLike) -> FloatArray:
+        """Mean strength fcm(t) at age t, MPa."""
+        return self._fcm * _beta_cc(self._tT(_age(age)), self._s)
+
+    def E(self, age: ArrayLike) -> FloatArray:
+        """Tangent modulus at age t, MPa."""
+        return self._E28 * _beta_cc(self._tT(_age(age)), self._s) ** self._n
+
+
 @dataclass(frozen=True)
-class Mc2010Model(_Base):
+class Mc2010Model(_FibStrengthGain, _Base):
     """fib Model Code 2010 (2013) 5.1.9.4 creep and shrinkage with the Eq. 5.1-21/5.1-56 modulus.
 
     * Modulus: Eci = Ec0 αE (fcm/10)^(1/3), Ec0 = 21,500 MPa (Eq. 5.1-21); Eci(t) = βE(t) Eci with
@@ -671,22 +704,6 @@ class Mc2010Model(_Base):
         mc.beta_RH_creep(self.relative_humidity, self.notional_size)
         mc.beta_bc_fcm(fcm)
 
-    @property
-    def maturity_at_end_of_curing(self) -> float:
-        """Temperature-adjusted age at the end of curing (given, fitted to f_ci, or real), d."""
-        return self.age_at_end_of_curing if self._tTc is None else self._tTc
-
-    def _tT(self, age: FloatArray) -> FloatArray:
-        return _maturity(age, self.age_at_end_of_curing, self._tTc)
-
-    def strength(self, age: ArrayLike) -> FloatArray:
-        """fib MC2010 (2013) Eq. 5.1-50/5.1-51: mean strength fcm(t) at age t, MPa."""
-        return self._fcm * _beta_cc(self._tT(_age(age)), self._s)
-
-    def E(self, age: ArrayLike) -> FloatArray:
-        """fib MC2010 (2013) Eq. 5.1-56/5.1-57 with Eq. 5.1-51: tangent modulus at age t, MPa."""
-        return self._E28 * _beta_cc(self._tT(_age(age)), self._s) ** self._n
-
     def _phi(self, t: FloatArray, t0: FloatArray) -> FloatArray:
         return np.asarray(
             mc.phi(
@@ -721,7 +738,7 @@ EN_S = {"S": 0.38, "N": 0.25, "R": 0.20}
 
 
 @dataclass(frozen=True)
-class En1992Model(_Base):
+class En1992Model(_FibStrengthGain, _Base):
     """EN 1992-1-1:2004 Annex B creep, 3.1.4(6) shrinkage, 3.1.3(3) modulus development.
 
     * Modulus: Ecm = 22 (fcm/10)^0.3 GPa (Table 3.1); Ecm(t) = [fcm(t)/fcm]^0.3 Ecm (Eq. 3.5) with
@@ -793,22 +810,6 @@ class En1992Model(_Base):
         # surface the code's own soft limits once (RH, fck)
         en.beta_RH(self.relative_humidity)
         en.epsilon_ca_inf(self.f_ck)
-
-    @property
-    def maturity_at_end_of_curing(self) -> float:
-        """Temperature-adjusted age at the end of curing (given, fitted to f_ci, or real), d."""
-        return self.age_at_end_of_curing if self._tTc is None else self._tTc
-
-    def _tT(self, age: FloatArray) -> FloatArray:
-        return _maturity(age, self.age_at_end_of_curing, self._tTc)
-
-    def strength(self, age: ArrayLike) -> FloatArray:
-        """EN 1992-1-1:2004 Eq. 3.1 and 3.2: mean strength fcm(t) at age t, MPa."""
-        return self._fcm * _beta_cc(self._tT(_age(age)), self._s)
-
-    def E(self, age: ArrayLike) -> FloatArray:
-        """EN 1992-1-1:2004 Eq. 3.5 with 3.1, 3.2, times 1.05 (3.1.4(2)): tangent modulus, MPa."""
-        return self._E28 * _beta_cc(self._tT(_age(age)), self._s) ** self._n
 
     def _phi(self, t: FloatArray, t0: FloatArray) -> FloatArray:
         return np.asarray(
