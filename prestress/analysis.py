@@ -435,6 +435,22 @@ class StageResult:
                 best = (s, g[0], g[1])
         return best
 
+    def governing_at(self, fiber: str) -> tuple[StationResult, float, FiberResult] | None:
+        """The station of the highest utilisation of one fiber, that utilisation and result.
+
+        A failing fiber with no limit of its sign counts as infinitely used; None where the
+        fiber is nowhere checked.
+        """
+        best = None
+        for st in self.stations:
+            fr = st.fibers.get(fiber)
+            if fr is None:
+                continue
+            u = fr.utilisation if fr.utilisation is not None else (None if fr.ok else np.inf)
+            if u is not None and (best is None or u > best[1]):
+                best = (st, float(u), fr)
+        return best
+
 
 @dataclass(frozen=True)
 class CheckResult:

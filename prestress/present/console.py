@@ -396,24 +396,14 @@ def summary(result: CheckResult) -> Table:
         ]
         first = True
         for fiber in fibers:
-            best = None
-            for st in s.stations:
-                fr = st.fibers.get(fiber)
-                if fr is None:
-                    continue
-                u = (
-                    fr.utilisation
-                    if fr.utilisation is not None
-                    else (float("inf") if not fr.ok else None)
-                )
-                if u is not None and (best is None or u > best[1]):
-                    best = (st, u, fr.ok)
+            best = s.governing_at(fiber)
             title = f"{i}. {s.title}" if first else ""
             first = False
             if best is None:
                 t.add_row(title, FIBER_NAMES[fiber], "—", "not checked", "")
                 continue
-            st, u, ok = best
+            st, u, fr = best
+            ok = fr.ok
             use = ">1" if u == float("inf") else f"{u:.2f}"
             t.add_row(title, FIBER_NAMES[fiber], st.name, use, PASS if ok else FAIL)
         t.add_section()

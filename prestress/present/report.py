@@ -1425,18 +1425,7 @@ def _governing(result: CheckResult, system: str) -> Section:
     best_all = None
     for i, s in enumerate(result.stages, 1):
         for fiber in ("girder_bottom", "girder_top", "deck_top"):
-            best = None
-            for st in s.stations:
-                fr = st.fibers.get(fiber)
-                if fr is None:
-                    continue
-                u = (
-                    fr.utilisation
-                    if fr.utilisation is not None
-                    else (float("inf") if not fr.ok else None)
-                )
-                if u is not None and (best is None or u > best[1]):
-                    best = (st, u, fr)
+            best = s.governing_at(fiber)
             if best is None:
                 if any(fiber in st.fibers for st in s.stations):
                     rows.append(
