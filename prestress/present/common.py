@@ -134,3 +134,26 @@ def loads_title(result: CheckResult) -> str:
     le = result.loads
     shear = le is not None and le.shear_live is not None
     return ("Moments and shears" if shear else "Moments") + " per girder, unfactored"
+
+
+def stage_limits(
+    stage: Any, fibers: list[str], system: str, *, unit: bool = False
+) -> list[tuple[str, str]]:
+    """The limits of a stage per fiber in words: (fiber, "compression −3.825, tension … (rule)").
+
+    The limits are those of the first station that checks the fiber (a stage has one set).
+    ``unit``: each value followed by its unit.
+    """
+    u = f" {label(system, 'stress')}" if unit else ""
+    out = []
+    for f in fibers:
+        fr = next((s.fibers[f] for s in stage.stations if f in s.fibers), None)
+        if fr is None:
+            continue
+        parts = []
+        if fr.compression_limit is not None:
+            parts.append(f"compression {signed(fr.compression_limit, system, 'stress')}{u}")
+        if fr.tension_limit is not None:
+            parts.append(f"tension {signed(fr.tension_limit, system, 'stress')}{u}")
+        out.append((f, ", ".join(parts) + f" ({fr.limit_text})" if parts else "not checked"))
+    return out

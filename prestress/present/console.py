@@ -23,6 +23,7 @@ from prestress.present.common import (
     loads_caption,
     loads_title,
     signed,
+    stage_limits,
 )
 
 PASS = "[green]ok[/]"
@@ -354,20 +355,7 @@ def stage_table(stage: StageResult, number: int, system: str) -> Group:
             Text(use),
             PASS if s.ok else FAIL,
         )
-    lines = []
-    for f in fibers:
-        fr = next((s.fibers[f] for s in stage.stations if f in s.fibers), None)
-        if fr is None:
-            continue
-        parts = []
-        if fr.compression_limit is not None:
-            parts.append(f"compression {signed(fr.compression_limit, system, 'stress')}")
-        if fr.tension_limit is not None:
-            parts.append(f"tension {signed(fr.tension_limit, system, 'stress')}")
-        rule = f" ({fr.limit_text})" if parts else ""
-        lines.append(
-            f"  {FIBER_NAMES[f]}: " + (", ".join(parts) + rule if parts else "not checked")
-        )
+    lines = [f"  {FIBER_NAMES[f]}: {text}" for f, text in stage_limits(stage, fibers, system)]
     limits = Text.from_markup(f"[dim]Limits ({su}):[/]\n" + "\n".join(lines))
     what = Text(f"Acting: {stage.description}.", style="dim")
     notes = [Text(f"Note: {n}", style="dim") for n in stage.notes]

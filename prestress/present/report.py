@@ -43,6 +43,7 @@ from prestress.present.common import (
     label,
     live_load_text,
     signed,
+    stage_limits,
     value,
 )
 
@@ -1353,18 +1354,9 @@ def _stage_blocks(stage: StageResult, number: int, system: str) -> list:
             "wide",
         )
     )
-    lim = []
-    for f in fibers:
-        fr = next((s.fibers[f] for s in stage.stations if f in s.fibers), None)
-        if fr is None:
-            continue
-        parts = []
-        if fr.compression_limit is not None:
-            parts.append(f"compression {signed(fr.compression_limit, system, 'stress')} {su}")
-        if fr.tension_limit is not None:
-            parts.append(f"tension {signed(fr.tension_limit, system, 'stress')} {su}")
-        text = ", ".join(parts) + f" ({fr.limit_text})" if parts else "not checked"
-        lim.append(f"{FIBER_NAMES[f]}: {text}")
+    lim = [
+        f"{FIBER_NAMES[f]}: {text}" for f, text in stage_limits(stage, fibers, system, unit=True)
+    ]
     out.append(Para("Limits — " + "; ".join(lim) + "."))
     for n in stage.notes:
         out.append(Para(f"Note: {n}", "note"))
