@@ -921,6 +921,7 @@ class Evaluator:
             applied_stress,
             deck_shrinkage_stresses,
             moments,
+            on_span,
             stage_specs,
         )
 
@@ -1055,13 +1056,12 @@ class Evaluator:
                         self.zero_t[si, f] = True
 
         # columns (stage, station, fiber) of each signature
-        a = job.bearing_offset
         self.columns: dict[int, tuple[np.ndarray, np.ndarray, np.ndarray]] = {}
         for sig, sts in self.sig_stations.items():
             cs, cj, cf = [], [], []
             for si, spec in enumerate(self.specs):
                 for st in sts:
-                    if spec.support == "bearings" and not a - 1.0 <= st.x <= L - a + 1.0:
+                    if spec.support == "bearings" and not on_span(job, st.x):
                         continue
                     for f in range(3):
                         if self.has_fiber[si, f]:

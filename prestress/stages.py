@@ -16,7 +16,7 @@ from typing import TYPE_CHECKING
 import numpy as np
 
 from prestress import actions
-from prestress.model import FIBERS
+from prestress.model import FIBERS, Job
 
 if TYPE_CHECKING:
     from prestress.analysis import Girder
@@ -49,6 +49,11 @@ class Station:
     x: float
 
 
+_SAME_STATION_MM = 1.0 + 1e-6
+"""Points closer than 1 mm are one station (the 1e-6 mm keeps round-off from unit
+conversion on the same side of the tolerance)."""
+
+
 def stations(girder: Girder) -> list[Station]:
     """Every station an engineer checks, de-duplicated (within 1 mm) and sorted.
 
@@ -78,20 +83,19 @@ def stations(girder: Girder) -> list[Station]:
             name = "midspan" if i == 5 else f"{i / 10:.1f} span"
         raw.append((name, a + S * i / 10.0))
     raw += list(job.user_stations)
-    merged: list[tuple[list[tuple[int, str]], float]] = []
+    merged: list[tuple[dict[str, int], float]] = []
     order = sorted(range(len(raw)), key=lambda k: raw[k][1])
     for k in order:
         name, x = raw[k]
         x = min(max(x, 0.0), L)
-        if merged and abs(merged[-1][1] - x) <= 1.0:
-            if name not in [n for _, n in merged[-1][0]]:
-                merged[-1][0].append((k, name))
+        if merged and abs(merged[-1][1] - x) <= _SAME_STATION_MM:
+            names = merged[-1][0]
+            names[name] = min(k, names.get(name, k))
         else:
-            merged.append(([(k, name)], x))
-    # names of a merged station in a fixed order (the order they are listed above), so the
+            merged.append(({name: k}, x))
+    # names of a merged station in a fixed order (where each is first listed above), so the
     # result does not depend on round-off in positions
-    merged = [(sorted(names), x) for names, x in merged]
-    return [Station(" / ".join(n for _, n in names), x) for names, x in merged]
+    return [Station(" / ".join(sorted(names, key=names.__getitem__)), x) for names, x in merged]
 
 
 # ------------------------------------------------------------------------------------------
@@ -321,10 +325,15 @@ class LoadEffects:
     shear_live: tuple[np.ndarray, np.ndarray] | None
 
 
+def on_span(job: Job, x: float) -> bool:
+    """Whether a point x (mm from the left end) lies between the bearings (1 mm tolerance)."""
+    a, L = job.bearing_offset, job.length
+    return a - _SAME_STATION_MM <= x <= L - a + _SAME_STATION_MM
+
+
 def span_stations(girder: Girder, all_stations: list[Station]) -> list[Station]:
     """The stations on the span, between the bearings (1 mm tolerance)."""
-    a, L = girder.job.bearing_offset, girder.job.length
-    return [s for s in all_stations if a - 1.0 <= s.x <= L - a + 1.0]
+    return [s for s in all_stations if on_span(girder.job, s.x)]
 
 
 def load_effects(girder: Girder, all_stations: list[Station]) -> LoadEffects:
