@@ -70,17 +70,37 @@ def space_table(result: DesignResult, system: str | None = None) -> Table:
 
 
 def _gov_cells(g: Governing | None, system: str) -> list[str]:
+    """The governing check in three cells: where (stage, station, fiber), stress / limit, use."""
     if g is None:
-        return ["—"] * 5
+        return ["—"] * 3
     util = "fails" if g.utilisation == float("inf") else f"{g.utilisation:.3f}"
+    x = f"{fmt(g.x, system, 'position', 2)} {label(system, 'position')}"
     return [
-        g.stage_title,
-        f"{g.station} ({fmt(g.x, system, 'position', 2)} {label(system, 'position')})",
-        FIBER_NAMES.get(g.fiber, g.fiber),
+        f"{escape(g.stage_title)}\n{escape(g.station)} ({x}), {FIBER_NAMES.get(g.fiber, g.fiber)}",
         f"{signed(g.stress, system, 'stress')} / "
         + ("—" if g.limit is None else signed(g.limit, system, "stress")),
         util,
     ]
+
+
+def _governing_columns(t: Table) -> None:
+    """The columns of :func:`_gov_cells`; only the first wraps, so the table fits 80 columns."""
+    t.add_column("governing check (stage; station, fiber)", min_width=20)
+    t.add_column("stress / limit", justify="right", no_wrap=True)
+    t.add_column("use", justify="right", no_wrap=True)
+
+
+def _design_table(title: str, caption: str) -> Table:
+    return Table(
+        title=title,
+        title_justify="left",
+        title_style="bold",
+        box=box.SIMPLE_HEAD,
+        caption=caption,
+        caption_justify="left",
+        collapse_padding=True,
+        pad_edge=False,
+    )
 
 
 def candidates_table(result: DesignResult, system: str | None = None) -> Table:
@@ -93,26 +113,18 @@ def candidates_table(result: DesignResult, system: str | None = None) -> Table:
         if result.best
         else "No candidate passes: the closest one"
     )
-    t = Table(
-        title=title,
-        title_justify="left",
-        title_style="bold",
-        box=box.SIMPLE_HEAD,
-        caption=f"Stresses in {su}, tension +, compression −; stress / limit of the governing "
+    t = _design_table(
+        title,
+        f"Stresses in {su}, tension +, compression −; stress / limit of the governing "
         "check; stations at their distance from the left girder end. Each candidate was "
         "checked again by the full check (as prestress check does). Patterns (strands per "
         "row, from the bottom):\n"
         + "\n".join(f"  {k}. {pattern_text(rc.candidate, system)}" for k, rc in enumerate(rows, 1)),
-        caption_justify="left",
     )
-    for col in ("#", "strands", "harped / debonded"):
-        t.add_column(col, justify="right" if col in ("#", "strands") else "left", no_wrap=True)
-    for col in ("governing stage", "station", "fiber", "stress / limit", "use"):
-        t.add_column(
-            col,
-            justify="right" if col in ("stress / limit", "use") else "left",
-            no_wrap=col != "governing stage",
-        )
+    t.add_column("#", justify="right", no_wrap=True)
+    t.add_column("strands", justify="right", no_wrap=True)
+    t.add_column("harped /\ndebonded", no_wrap=True)
+    _governing_columns(t)
     t.add_column("", no_wrap=True)
     for k, rc in enumerate(rows, 1):
         c = rc.candidate
@@ -133,17 +145,12 @@ def next_leaner_table(result: DesignResult, system: str | None = None) -> Table 
     if rc is None:
         return None
     c = rc.candidate
-    t = Table(
-        title=f"Why {c.strands} strands are not enough: the closest candidate with "
+    t = _design_table(
+        f"Why {c.strands} strands are not enough: the closest candidate with "
         f"{c.strands} strands ({_special(c)}; {pattern_text(c, system)})",
-        title_justify="left",
-        title_style="bold",
-        box=box.SIMPLE_HEAD,
-        caption="Every candidate with fewer strands fails too (the search is exhaustive).",
-        caption_justify="left",
+        "Every candidate with fewer strands fails too (the search is exhaustive).",
     )
-    for col in ("stage", "station", "fiber", "stress / limit", "use"):
-        t.add_column(col, justify="right" if col in ("stress / limit", "use") else "left")
+    _governing_columns(t)
     for g in rc.failures:
         t.add_row(*_gov_cells(g, system))
     return t

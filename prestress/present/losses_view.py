@@ -124,8 +124,11 @@ def compare_table(results: list[LossBreakdown], A_ps: float, system: str) -> Tab
         "a mechanism a method does not model is shown as —. Totals are fpj − fpe, jacking to "
         f"final; rows marked{NOT_IN_TOTAL} are not part of them.",
         caption_justify="left",
+        padding=(0, 0),
     )
-    t.add_column("Mechanism", min_width=22)
+    # only the mechanism wraps, and the columns are one space apart (the box's divider), so
+    # six methods side by side fit 80 columns
+    t.add_column("Mechanism", min_width=14)
     for b in results:
         t.add_column("\n".join(b.method.rsplit("-", 1)), justify="right", no_wrap=True)
     sums = [by_mechanism(b) for b in results]
@@ -254,13 +257,13 @@ def tendon_tables(girder, system: str) -> list[Table]:
             "within about ±5–7 % (common practice).",
             caption_justify="left",
         )
-        for col in (
+        for col in (  # two-line headers, so the table fits 80 columns
             "x",
             "height",
-            "after friction",
-            "friction loss",
-            "after anchor set",
-            "set loss",
+            "after\nfriction",
+            "friction\nloss",
+            "after\nanchor set",
+            "set\nloss",
             "% fpj",
         ):
             tab.add_column(col, justify="right", no_wrap=True)
@@ -298,7 +301,10 @@ def tendon_limit_table(checks: list[Any], system: str) -> Table:
         caption_justify="left",
     )
     for col in ("Tendon", "Condition", "Where", "x", "Stress", "Limit", "Ratio", ""):
-        tab.add_column(col, justify="left" if col in ("Tendon", "Condition", "Where") else "right")
+        if col in ("Tendon", "Condition", "Where"):  # words longer than the column fold
+            tab.add_column(col, overflow="fold")
+        else:
+            tab.add_column(col, justify="right", no_wrap=True)
     short = {
         "prior_to_seating": "jacking, prior to seating",
         "anchorage_after_set": "at an anchorage, after set",

@@ -22,12 +22,15 @@ def listing_table(rows: list[SectionSummary], unit_weight: float, system: str) -
         caption=f"Weight from a unit weight of {fmt(unit_weight, system, 'unit_weight', 4)} "
         f"{label(system, 'unit_weight')}.",
         caption_justify="left",
+        collapse_padding=True,
+        pad_edge=False,
     )
+    # units under the headers and only the source wrapping, so the table fits 80 columns
     t.add_column("Name", no_wrap=True)
     t.add_column("Family", no_wrap=True)
-    t.add_column(f"Depth ({label(system, 'dimension')})", justify="right", no_wrap=True)
-    t.add_column(f"Area ({label(system, 'area')})", justify="right", no_wrap=True)
-    t.add_column(f"Weight ({wu})", justify="right", no_wrap=True)
+    t.add_column(f"Depth\n({label(system, 'dimension')})", justify="right", no_wrap=True)
+    t.add_column(f"Area\n({label(system, 'area')})", justify="right", no_wrap=True)
+    t.add_column(f"Weight\n({wu})", justify="right", no_wrap=True)
     t.add_column("Source")
     for r in rows:
         t.add_row(

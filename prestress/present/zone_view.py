@@ -114,9 +114,13 @@ def zone_table(result: CheckResult, system: str, only_outside: bool = False) -> 
         f"{label(system, 'position')} from the left end; margin: distance from the cgs to "
         "the nearer edge of the band (negative: outside).",
         caption_justify="left",
+        collapse_padding=True,
+        pad_edge=False,
     )
-    for col in ("Station", "x", "lowest", "cgs", "highest", "margin", ""):
-        t.add_column(col, justify="left" if col in ("Station", "") else "right", no_wrap=True)
+    # only the station (folds) and the bounds' text wrap, so the table fits 80 columns
+    t.add_column("Station", overflow="fold", min_width=8)
+    for col in ("x", "lowest", "cgs", "highest", "margin", ""):
+        t.add_column(col, justify="left" if col == "" else "right", no_wrap=True)
     t.add_column("Bounds set by")
     for z in result.zone:
         if only_outside and z.inside:
