@@ -6,6 +6,13 @@ import os
 from pathlib import Path
 
 import pytest
+from hypothesis import settings
+
+#: Property tests draw fresh random examples on a developer's machine, and a fixed sequence
+#: under CI (``.ci/run`` sets HYPOTHESIS_PROFILE=ci), so a red CI always means a change broke
+#: something, never a new draw. Explore more locally with PRESTRESS_PROPERTY_EXAMPLES=3000.
+settings.register_profile("ci", derandomize=True, database=None, print_blob=True)
+settings.load_profile(os.environ.get("HYPOTHESIS_PROFILE", "default"))
 
 ROOT = Path(__file__).resolve().parents[1]
 EXAMPLES = ROOT / "examples"
