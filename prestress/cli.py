@@ -438,6 +438,16 @@ def cmd_losses(args: argparse.Namespace) -> int:
         console.print(view.compare_table(results, job.A_ps, system))
         for s in skipped:
             console.print(f"[dim]Not applicable: {escape(s)}[/]")
+        # the caveats (a model used beyond its range); each method's other notes are shown
+        # with --method M
+        for b in results:
+            for n in b.notes:
+                if n.startswith(f"{b.method} method:"):
+                    console.print(f"[dim]Note: {escape(n)}[/]")
+        console.print(
+            "[dim]The notes of one method (its inputs, models and assumptions): "
+            "prestress losses JOB --method NAME[/]"
+        )
     else:
         if job.post_tensioned:
             for t in view.tendon_tables(girder, system):
@@ -453,6 +463,8 @@ def cmd_losses(args: argparse.Namespace) -> int:
 def _losses_history(args: argparse.Namespace, girder, method: str, system: str) -> int:  # type: ignore[no-untyped-def]
     """``prestress losses JOB --at AGES``: the time-step history at midlength."""
     import json
+
+    from rich.markup import escape
 
     from prestress.losses.timestep_method import history
     from prestress.present import losses_view as view
@@ -479,6 +491,8 @@ def _losses_history(args: argparse.Namespace, girder, method: str, system: str) 
         return EXIT_OK
     console = make_console()
     console.print(view.history_table(girder, rows, method, system))
+    for n in getattr(rows, "notes", ()):
+        console.print(f"[dim]Note: {escape(n)}[/]")
     console.print(f"[yellow]{CAUTION}[/]")
     return EXIT_OK
 

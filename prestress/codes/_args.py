@@ -48,3 +48,29 @@ def not_before(
     if np.any(a < t_start):
         raise ValueError(f"{name} must be at least {start} (days), got {name} = {t}")
     return a
+
+
+# --------------------------------------------------------------------------- warning texts
+#: 1 ksi in MPa (exact: 4.4482216152605 N / 25.4² mm² × 1000), for the warnings' second unit.
+KSI_MPA = 4448.2216152605 / 25.4**2
+
+
+def worst(value: ArrayLike, upper: bool) -> float:
+    """The element of ``value`` furthest beyond a limit: the largest for an upper limit."""
+    a = np.asarray(value, dtype=float)
+    return float(np.max(a) if upper else np.min(a))
+
+
+def mpa_ksi(value_mpa: float) -> str:
+    """A stress in MPa for a warning, with ksi beside it (the output units are not known)."""
+    return f"{value_mpa:.1f} MPa ({value_mpa / KSI_MPA:.2f} ksi)"
+
+
+def ksi_mpa(value_ksi: float) -> str:
+    """A stress in ksi for a warning, with MPa beside it."""
+    return f"{value_ksi:.2f} ksi ({value_ksi * KSI_MPA:.1f} MPa)"
+
+
+def in_mm(value_in: float) -> str:
+    """A length in inches for a warning, with millimetres beside it."""
+    return f"{value_in:.3g} in. ({value_in * 25.4:.0f} mm)"

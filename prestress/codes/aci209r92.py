@@ -43,6 +43,7 @@ import numpy as np
 from numpy.typing import ArrayLike, NDArray
 
 from prestress.codes._args import finite as _finite
+from prestress.codes._args import in_mm, worst
 from prestress.codes._args import non_negative as _non_negative
 from prestress.codes._args import out as _out
 from prestress.codes._args import positive as _positive
@@ -91,8 +92,8 @@ def _rh(RH: ArrayLike) -> NDArray[np.float64]:
         raise ValueError(f"RH must be a relative humidity from 0 to 100 percent, got {RH}")
     if np.any(r < RH_LOWER_PERCENT):
         warnings.warn(
-            f"RH = {RH} % is below {RH_LOWER_PERCENT:g} %, the lowest humidity for which "
-            "ACI 209R-92 2.5.4 gives its correction factors",
+            f"RH = {worst(r, False):g} % is below {RH_LOWER_PERCENT:g} %, the lowest humidity "
+            "for which ACI 209R-92 2.5.4 gives its creep and shrinkage correction factors",
             stacklevel=3,
         )
     return r
@@ -249,8 +250,8 @@ def gamma_la(t_la: ArrayLike, curing: str = "moist") -> FloatOrArray:
     earliest = 7.0 if method == "moist" else 1.0
     if np.any(t < earliest):
         warnings.warn(
-            f"t_la = {t_la} days is earlier than {earliest:g} days, outside ACI 209R-92 2.5.1 "
-            f"for {method}-cured concrete",
+            f"age at loading t_la = {worst(t, False):.3g} d is earlier than {earliest:g} d, "
+            f"outside ACI 209R-92 2.5.1 for {method}-cured concrete",
             stacklevel=2,
         )
     if method == "moist":
@@ -289,8 +290,9 @@ def _h_in(h: ArrayLike) -> NDArray[np.float64]:
     hh = _positive("h", h, "in.")
     if np.any(hh < 2.0) or np.any(hh > 15.0):
         warnings.warn(
-            f"h = {h} in. lies outside 2..15 in., the average thicknesses ACI 209R-92 2.5.5.1 "
-            "covers; the nearest tabulated value or the equations are used",
+            f"average thickness h = {in_mm(worst(hh, hh.max() > 15.0))} lies outside 2 to "
+            "15 in. (51 to 381 mm), the thicknesses ACI 209R-92 2.5.5.1 covers; the nearest "
+            "tabulated value or the equations are used",
             stacklevel=3,
         )
     return hh
@@ -379,7 +381,8 @@ def gamma_cp(t_c: ArrayLike, curing: str = "moist") -> FloatOrArray:
         return _out(np.ones_like(t))
     if np.any(t < 1.0) or np.any(t > 90.0):
         warnings.warn(
-            f"t_c = {t_c} days lies outside 1..90 days, the range of ACI 209R-92 Table 2.5.3",
+            f"moist-curing period t_c = {worst(t, t.max() > 90.0):.3g} d lies outside 1 to "
+            "90 d, the range of ACI 209R-92 Table 2.5.3",
             stacklevel=2,
         )
     return _out(np.interp(t, TABLE_2_5_3_DAYS, TABLE_2_5_3_GAMMA_CP))

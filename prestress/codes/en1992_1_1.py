@@ -28,6 +28,7 @@ import warnings
 import numpy as np
 from numpy.typing import ArrayLike, NDArray
 
+from prestress.codes._args import KSI_MPA, mpa_ksi, worst
 from prestress.codes._args import finite as _finite
 from prestress.codes._args import non_negative as _non_negative
 from prestress.codes._args import not_before as _t_not_before
@@ -69,8 +70,8 @@ def _rh(RH: ArrayLike) -> NDArray[np.float64]:
         raise ValueError(f"RH must be a relative humidity from 0 to 100 percent, got {RH}")
     if np.any(r < RH_LOWER_PERCENT):
         warnings.warn(
-            f"RH = {RH} % is below {RH_LOWER_PERCENT:g} %, the lowest humidity EN 1992-1-1 "
-            "3.1.4(2) states its creep values for",
+            f"RH = {worst(r, False):g} % is below {RH_LOWER_PERCENT:g} %, the lowest humidity "
+            "EN 1992-1-1:2004 3.1.4(2) states its creep values for",
             stacklevel=3,
         )
     return r
@@ -477,7 +478,8 @@ def _fck(fck: ArrayLike) -> NDArray[np.float64]:
     f = _positive("fck", fck, "MPa")
     if np.any(f > FCK_UPPER_MPA):
         warnings.warn(
-            f"fck = {fck} MPa exceeds {FCK_UPPER_MPA:g} MPa, the top class of EN 1992-1-1 "
+            f"fck = {mpa_ksi(worst(f, True))} exceeds {FCK_UPPER_MPA:g} MPa "
+            f"({FCK_UPPER_MPA / KSI_MPA:.2f} ksi), the top strength class of EN 1992-1-1:2004 "
             "Table 3.1",
             stacklevel=3,
         )

@@ -30,6 +30,7 @@ import warnings
 import numpy as np
 from numpy.typing import ArrayLike, NDArray
 
+from prestress.codes._args import KSI_MPA, mpa_ksi, worst
 from prestress.codes._args import finite as _finite
 from prestress.codes._args import non_negative as _non_negative
 from prestress.codes._args import not_before as _t_not_before
@@ -69,8 +70,9 @@ def _fcm(fcm: ArrayLike) -> NDArray[np.float64]:
     lo, hi = FCM_RANGE_MPA
     if np.any(f < lo) or np.any(f > hi):
         warnings.warn(
-            f"fcm = {fcm} MPa lies outside {lo:g}..{hi:g} MPa, the range of applicability of "
-            "fib MC2010 5.1.9.4.2",
+            f"fcm = {mpa_ksi(worst(f, f.max() > hi))} lies outside {lo:g} to {hi:g} MPa "
+            f"({lo / KSI_MPA:.2f} to {hi / KSI_MPA:.2f} ksi), the range of applicability of the "
+            "fib MC2010 5.1.9.4.2 creep and shrinkage model",
             stacklevel=3,
         )
     return f
@@ -82,8 +84,8 @@ def _rh(RH: ArrayLike) -> NDArray[np.float64]:
         raise ValueError(f"RH must be a relative humidity from 0 to 100 percent, got {RH}")
     if np.any(r < RH_LOWER_PERCENT):
         warnings.warn(
-            f"RH = {RH} % is below {RH_LOWER_PERCENT:g} %, the lower limit of applicability "
-            "of fib MC2010 5.1.9.4.2",
+            f"RH = {worst(r, False):g} % is below {RH_LOWER_PERCENT:g} %, the lower limit of "
+            "applicability of the fib MC2010 5.1.9.4.2 creep and shrinkage model",
             stacklevel=3,
         )
     return r
@@ -93,8 +95,8 @@ def _t0(t0: ArrayLike) -> NDArray[np.float64]:
     a = _positive("t0", t0, "days")
     if np.any(a < T0_LOWER_DAYS):
         warnings.warn(
-            f"t0 = {t0} days is below {T0_LOWER_DAYS:g} day, the minimum age at loading of "
-            "fib MC2010 5.1.9.4.2",
+            f"age at loading t0 = {worst(a, False):.3g} d is below {T0_LOWER_DAYS:g} d, the "
+            "minimum age at loading of the fib MC2010 5.1.9.4.2 creep model",
             stacklevel=3,
         )
     return a

@@ -8,9 +8,10 @@ Methods register themselves in :data:`METHODS` under the name the job file uses.
 
 from __future__ import annotations
 
+import warnings
 from collections.abc import Callable
-from dataclasses import dataclass, field
-from typing import TYPE_CHECKING
+from dataclasses import dataclass, field, replace
+from typing import TYPE_CHECKING, TypeVar
 
 if TYPE_CHECKING:
     from prestress.analysis import Girder
@@ -146,8 +147,59 @@ def load_methods(name: str | None = None) -> None:
         importlib.import_module(module)
 
 
+#: Warnings meant for programmers (deprecations and the like), passed on rather than made notes.
+DEVELOPER_WARNINGS: tuple[type[Warning], ...] = (
+    DeprecationWarning,
+    PendingDeprecationWarning,
+    ImportWarning,
+    ResourceWarning,
+    SyntaxWarning,
+    BytesWarning,
+)
+
+T = TypeVar("T")
+
+
+def run_recording_warnings(method: str, fn: Callable[[], T]) -> tuple[T, tuple[str, ...]]:
+    """Run a loss method's computation, turning every warning it raises into a note.
+
+    The published models warn (``warnings.warn``) when an input lies beyond a soft limit of
+    their range (a strength above the equations' range, a humidity below it, a load earlier
+    than the creep model covers...). Inside a loss method none of these may reach stderr: each
+    becomes a note naming the method, to be printed with the method's results (``check``,
+    ``losses``, the report and the JSON all print a breakdown's notes). Identical notes are
+    given once, in the order first raised. Warnings meant for programmers
+    (:data:`DEVELOPER_WARNINGS`) are passed on to the caller's warning filters unchanged.
+
+    Args:
+        method: the method's name as the job file writes it (the notes start with it).
+        fn: the computation, called once with no arguments.
+
+    Returns:
+        What ``fn`` returned, and the notes.
+    """
+    with warnings.catch_warnings(record=True) as caught:
+        warnings.simplefilter("always")
+        result = fn()
+    notes: list[str] = []
+    for w in caught:
+        if issubclass(w.category, DEVELOPER_WARNINGS):
+            warnings.warn_explicit(w.message, w.category, w.filename, w.lineno, source=w.source)
+            continue
+        text = f"{method} method: {str(w.message).strip()}"
+        if text not in notes:
+            notes.append(text)
+    return result, tuple(notes)
+
+
 def compute_losses(girder: Girder, method: str | None = None) -> LossBreakdown:
-    """The losses of the girder by the named method (default: the job's choice)."""
+    """The losses of the girder by the named method (default: the job's choice).
+
+    Soft-limit warnings raised while the method runs come back as notes on the breakdown
+    (:func:`run_recording_warnings`), never as Python warnings.
+    """
     name = method or girder.job.loss_method
     load_methods(name)
-    return METHODS[name](girder)
+    result, notes = run_recording_warnings(name, lambda: METHODS[name](girder))
+    new = tuple(n for n in notes if n not in result.notes)
+    return replace(result, notes=result.notes + new) if new else result

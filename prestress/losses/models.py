@@ -216,6 +216,11 @@ class _Base:
     age_at_end_of_curing: float
     min_loading_age: float
 
+    @property
+    def min_loading_age_source(self) -> str:
+        """The clause stating ``min_loading_age`` (empty where the model has no such limit)."""
+        return ""
+
     def E(self, age: ArrayLike) -> FloatArray:  # pragma: no cover - overridden
         """Modulus of elasticity at ``age``, MPa."""
         raise NotImplementedError
@@ -520,6 +525,11 @@ class Aci209Model(_Base):
         aci.gamma_lambda_creep(self.relative_humidity)
         aci.gamma_cp(self.age_at_end_of_curing, curing)
 
+    @property
+    def min_loading_age_source(self) -> str:
+        """ACI 209R-92 2.5.1: loading from 7 days (moist curing) or 1 day (steam curing)."""
+        return f"ACI 209R-92 2.5.1 for {self.curing}-cured concrete"
+
     def _ratio(self, t: ArrayLike) -> FloatArray:
         tt = np.asarray(t, dtype=float)
         return tt / (self._a + self._beta * tt)
@@ -703,6 +713,11 @@ class Mc2010Model(_FibStrengthGain, _Base):
         # surface the code's own soft limits once (fcm, RH)
         mc.beta_RH_creep(self.relative_humidity, self.notional_size)
         mc.beta_bc_fcm(fcm)
+
+    @property
+    def min_loading_age_source(self) -> str:
+        """fib MC2010 (2013) 5.1.9.4.2: the creep model's range starts at an age of 1 day."""
+        return "fib MC2010 (2013) 5.1.9.4.2"
 
     def _phi(self, t: FloatArray, t0: FloatArray) -> FloatArray:
         return np.asarray(

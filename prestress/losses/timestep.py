@@ -379,6 +379,26 @@ def _check_model(name: str, model: object) -> None:
 
 
 # --------------------------------------------------------------------------- engine
+def young_loading_text(part: ConcretePart, age: float) -> str:
+    """The caveat when a part is loaded younger than its creep model covers (for an engineer).
+
+    Args:
+        part: the concrete part; its model's ``min_loading_age`` (days), ``title`` and
+            ``min_loading_age_source`` (the clause stating that age) are quoted where present.
+        age: the part's earliest age at loading, days.
+    """
+    model = part.model
+    title = getattr(model, "title", "")
+    source = getattr(model, "min_loading_age_source", "") or title
+    min_age = float(getattr(model, "min_loading_age", 0.0))
+    when = f"{age:.3g} d ({age * 24.0:.3g} h)" if age < 2.0 else f"{age:.3g} d"
+    covers = f" ({min_age:g} d and later, {source})" if source else f" ({min_age:g} d and later)"
+    return (
+        f"the {part.name} concrete is loaded at an age of {when}, earlier than its creep model "
+        f"covers{covers}; the creep under that load is extrapolated from the model"
+    )
+
+
 def run_timestep(
     parts: Sequence[ConcretePart],
     layers: Sequence[StrandLayer],
@@ -651,12 +671,9 @@ def run_timestep(
         for j in loaded:
             if te[j] - c < min_age:
                 young[p.name] = min(young.get(p.name, math.inf), te[j] - c)
-    for name, age in young.items():
-        warnings.warn(
-            f"part {name!r} is loaded at an age of {age:g} d, earlier than its creep model "
-            "covers; results at that load are extrapolated",
-            stacklevel=2,
-        )
+    for p in parts:
+        if p.name in young:
+            warnings.warn(young_loading_text(p, young[p.name]), stacklevel=2)
 
     # ---------------------------------------------------------------- loads per step
     dN_ext = np.zeros((n, S))

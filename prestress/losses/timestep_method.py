@@ -43,7 +43,7 @@ from typing import TYPE_CHECKING, Any
 import numpy as np
 
 from prestress.errors import InputError
-from prestress.losses import LossBreakdown, LossComponent, register
+from prestress.losses import LossBreakdown, LossComponent, register, run_recording_warnings
 from prestress.losses.models import make_model
 from prestress.losses.pretensioned import before_transfer, elastic_shortening_gross, finish
 from prestress.losses.refined import deck_volume_to_surface, midspan_noncomposite_moment
@@ -261,51 +261,100 @@ def analyse(
     return res, ages
 
 
+#: An age asked for beyond the job's final age by at most this fraction is taken as the final
+#: age: a year is 365.25 d to the unit library and 365 d to many engineers, so "75 year" is
+#: 0.07 % beyond a final age of 75 × 365 = 27,375 d (common practice: the two year lengths).
+FINAL_AGE_TOLERANCE = 1e-3
+
+
 @dataclass(frozen=True)
 class HistoryRow:
     """The state of the girder at midlength at one age, from the time-step analysis.
 
     Attributes:
-        age: girder age, days.
+        age: girder age, days (the final age where the age asked for was taken as it).
         strand_stress: strand stress, area-weighted over the strand layers, MPa.
         loss: loss since jacking, fpj − strand stress, MPa.
         fibers: fiber → concrete stress, MPa (tension +); the deck top only once the deck is
             cast.
+        requested_age: the age asked for, days, where it differs from ``age`` (an age just
+            beyond the final age, see :data:`FINAL_AGE_TOLERANCE`); ``None`` otherwise.
     """
 
     age: float
     strand_stress: float
     loss: float
     fibers: dict[str, float]
+    requested_age: float | None = None
 
 
-def history(girder: Girder, model_name: str, ages: tuple[float, ...]) -> list[HistoryRow]:
+class History(list[HistoryRow]):
+    """The rows of :func:`history`, with the notes an engineer should read beside them.
+
+    Attributes:
+        notes: ages taken as the final age, and the soft limits of the model met during the
+            analysis (what would otherwise be Python warnings), each once.
+    """
+
+    notes: tuple[str, ...] = ()
+
+
+def final_age_note(requested: float, final: float) -> str:
+    """The note for an age asked for just beyond the final age and taken as it (days)."""
+    beyond = 100.0 * (requested / final - 1.0)
+    return (
+        f"the age {requested:.1f} d ({requested / 365.25:.4g} years of 365.25 d) is "
+        f"{beyond:.2g} % beyond the final age of the job and is taken as the final age "
+        f"{final:g} d ({final / 365.0:.4g} years of 365 d); an age up to "
+        f"{100 * FINAL_AGE_TOLERANCE:g} % beyond the final age is taken as it"
+    )
+
+
+def history(girder: Girder, model_name: str, ages: tuple[float, ...]) -> History:
     """Strand and concrete stresses at midlength at the given ages (days), by time steps.
 
     The stresses are those of the time-step analysis itself: prestress, girder self-weight,
     deck and superimposed dead load with creep, shrinkage (girder and deck) and relaxation;
-    no live load. Ages must lie from transfer to the final age of the job.
+    no live load. Ages must lie from transfer to the final age of the job; an age beyond the
+    final age by at most :data:`FINAL_AGE_TOLERANCE` (0.1 %) is taken as the final age, with a
+    note. Soft-limit warnings of the model become notes (``History.notes``), as for every loss
+    method (:func:`prestress.losses.run_recording_warnings`).
     """
     t = girder.job.times
+    used: list[float] = []
+    notes: list[str] = []
     for age in ages:
+        if t.final < age <= t.final * (1.0 + FINAL_AGE_TOLERANCE):
+            used.append(t.final)
+            note = final_age_note(age, t.final)
+            if note not in notes:
+                notes.append(note)
+            continue
         if not t.transfer <= age <= t.final:
             raise InputError(
-                f"ages from transfer ({t.transfer:g} d) to the final age ({t.final:g} d)",
+                f"ages from transfer ({t.transfer:g} d) to the final age ({t.final:g} d; "
+                f"up to {100 * FINAL_AGE_TOLERANCE:g} % beyond it is taken as it)",
                 file="command line",
                 field="--at",
                 got=f"{age:g} d",
             )
-    res, _ = analyse(girder, model_name, extra_ages=tuple(ages))
+        used.append(age)
+    (res, _), warned = run_recording_warnings(
+        f"time-step-{model_name}", lambda: analyse(girder, model_name, extra_ages=tuple(used))
+    )
     areas = np.array([s.total_area for s in girder.job.layout.sets])  # type: ignore[union-attr]
     fpj = girder.job.strand.jacking_stress
-    rows = []
-    for age in ages:
+    rows = History()
+    for asked, age in zip(ages, used, strict=True):
         i = res.index(age)
         fp = _mean(res.strand_stress, i, areas)
         fibers = {f: float(v[i, 0]) for f, v in res.concrete_stress["girder"].items()}
         if res.part_active["deck"][i]:
             fibers |= {f: float(v[i, 0]) for f, v in res.concrete_stress["deck"].items()}
-        rows.append(HistoryRow(age, fp, fpj - fp, fibers))
+        rows.append(
+            HistoryRow(age, fp, fpj - fp, fibers, requested_age=None if asked == age else asked)
+        )
+    rows.notes = (*notes, *warned)
     return rows
 
 
@@ -390,6 +439,27 @@ def _model_notes(
     return notes, figures
 
 
+def relaxation_source(strand_class: str) -> str:
+    """The source of the relaxation rows: the log-time law and its constant C.
+
+    The time-step analysis relaxes the strands by the intrinsic log-time law of Magura, Sozen
+    and Siess (1964), PCI Journal 9(2) (:func:`prestress.codes.aashto_lrfd.relaxation.
+    f_pR_log_time`, applied step by step in :mod:`prestress.losses.timestep`), whatever the
+    creep and shrinkage model.
+
+    Args:
+        strand_class: the job's strand relaxation class, ``"low"`` or ``"stress_relieved"``.
+    """
+    from prestress.codes.aashto_lrfd import relaxation as rx
+
+    kind = "low_relaxation" if strand_class == "low" else "stress_relieved"
+    C = rx.log_time_constant(kind)  # type: ignore[arg-type]
+    return (
+        "time-step, log-time relaxation of Magura, Sozen and Siess (1964), C = "
+        f"{C:g} ({'low-relaxation' if kind == 'low_relaxation' else 'stress-relieved'} strand)"
+    )
+
+
 def _relaxation_note(girder: Girder) -> list[str]:
     """The relaxation-clock convention, with the size of the overlap when fpbt < fpj."""
     from prestress.codes.aashto_lrfd import relaxation as rx
@@ -397,8 +467,17 @@ def _relaxation_note(girder: Girder) -> list[str]:
     job = girder.job
     strand = job.strand
     text = (
-        "relaxation of the strand counted from transfer at fpbt (AASHTO LRFD 5.9.3.4.2c "
-        "counts ΔfpR1 from transfer); relaxation in the bed is not computed"
+        "relaxation of the strand by the intrinsic log-time law of Magura, Sozen and Siess "
+        "(1964), PCI Journal 9(2), "
+        + (
+            "with C = 45 for low-relaxation strand (the value in common use in PCI literature, "
+            "from memory)"
+            if strand.relaxation == "low"
+            else "with C = 10 for stress-relieved strand"
+        )
+        + ", applied to the varying strand stress step by step (whatever the creep and "
+        "shrinkage model); counted from transfer at fpbt (AASHTO LRFD 5.9.3.4.2c counts ΔfpR1 "
+        "from transfer); relaxation in the bed is not computed"
     )
     if strand.stress_before_transfer < strand.jacking_stress:
         kind = "low_relaxation" if strand.relaxation == "low" else "stress_relieved"
@@ -444,6 +523,8 @@ def make_method(model_name: str):
             ("creep", "Creep of the girder", by_part["creep"]["girder"]),
             ("relaxation", "Relaxation of the strand", res.losses["relaxation"]),
         ]
+        # relaxation is the strand's intrinsic log-time law, not the concrete model's
+        sources = {"relaxation": relaxation_source(job.strand.relaxation)}
         deck_rows = [
             ("deck_shrinkage_gain", "Deck shrinkage (gain)", by_part["shrinkage"]["deck"]),
             ("deck_creep", "Creep of the deck", by_part["creep"]["deck"]),
@@ -454,7 +535,9 @@ def make_method(model_name: str):
         ):
             for key, label, vals in rows:
                 v = _mean(vals, i1, areas) - _mean(vals, i0, areas)
-                comps.append(LossComponent(key + suffix, label, v, period, source))
+                comps.append(
+                    LossComponent(key + suffix, label, v, period, sources.get(key, source))
+                )
             if suffix:
                 for key, label, vals in deck_rows:
                     v = _mean(vals, i1, areas) - _mean(vals, i0, areas)

@@ -373,4 +373,5 @@ def history_dict(rows: list[Any], method: str, system: str) -> dict[str, Any]:
             }
             for r in rows
         ],
+        "notes": list(getattr(rows, "notes", ())),
     }

@@ -29,6 +29,8 @@ import warnings
 import numpy as np
 from numpy.typing import ArrayLike, NDArray
 
+from prestress.codes._args import ksi_mpa, worst
+
 FloatOrArray = float | NDArray[np.float64]
 
 #: Ultimate shrinkage strain basis of Eq. 5.4.2.3.3-1 (0.48 × 10⁻³).
@@ -56,8 +58,8 @@ def _check_f_ci(f_ci: ArrayLike) -> NDArray[np.float64]:
         raise ValueError(f"f_ci must be a strength in ksi greater than 0 and below 25, got {f_ci}")
     if np.any(f > F_C_UPPER_KSI):
         warnings.warn(
-            f"f_ci = {f_ci} ksi exceeds {F_C_UPPER_KSI} ksi, the upper strength of the "
-            "AASHTO LRFD 5.4.2.3 creep and shrinkage equations",
+            f"f'ci = {ksi_mpa(worst(f, True))} exceeds {ksi_mpa(F_C_UPPER_KSI)}, the upper "
+            "strength of the AASHTO LRFD 5.4.2.3 creep and shrinkage equations",
             stacklevel=3,
         )
     return f

@@ -48,6 +48,7 @@ from __future__ import annotations
 import warnings
 from dataclasses import dataclass
 
+from prestress.codes._args import ksi_mpa
 from prestress.codes.aashto_lrfd import creep_shrinkage as cs
 from prestress.codes.aashto_lrfd import relaxation as rx
 
@@ -571,11 +572,11 @@ def refined_losses(inp: RefinedLossInput) -> RefinedLossResult:
         f_c=inp.f_c,
         f_c_deck=inp.f_c_deck,
     )
-    for name, value in (("f_c", inp.f_c), ("f_c_deck", inp.f_c_deck)):
+    for name, value in (("f'c of the girder", inp.f_c), ("f'c of the deck", inp.f_c_deck)):
         if value > cs.F_C_UPPER_KSI:
             warnings.warn(
-                f"{name} = {value} ksi exceeds {cs.F_C_UPPER_KSI} ksi, the upper strength of the "
-                "AASHTO LRFD 5.4.2.3 creep and shrinkage equations",
+                f"{name} = {ksi_mpa(value)} exceeds {ksi_mpa(cs.F_C_UPPER_KSI)}, the upper "
+                "strength of the AASHTO LRFD 5.4.2.3 creep and shrinkage equations",
                 stacklevel=2,
             )
     f_ci_d = 0.80 * inp.f_c_deck if inp.f_ci_deck is None else inp.f_ci_deck
