@@ -375,6 +375,27 @@ class FiberResult:
     ok: bool
     limit_text: str
 
+    def rank(self) -> tuple[float, float] | None:
+        """How close the fiber is to its limits, to find the governing one (larger: closer).
+
+        First the utilisation (a failing fiber without a limit of its sign counts as
+        infinitely used); then, to tell apart fibers of equal utilisation (a zero tension
+        limit, as in decompression, gives 0 in compression and "failing" in tension), the
+        distance in MPa by which the stress passes the limit that binds it: the tension
+        limit in tension or where only a tension limit is set, else the compression limit.
+        None where the fiber is not checked.
+        """
+        u = self.utilisation if self.utilisation is not None else (None if self.ok else np.inf)
+        if u is None:
+            return None
+        if self.tension_limit is not None and (
+            self.stress >= 0.0 or self.compression_limit is None
+        ):
+            return (float(u), self.stress - self.tension_limit)
+        if self.compression_limit is not None:
+            return (float(u), self.compression_limit - self.stress)
+        return (float(u), 0.0)
+
 
 @dataclass(frozen=True)
 class StationResult:
@@ -403,10 +424,10 @@ class StationResult:
         """The fiber with the highest utilisation and that utilisation."""
         best = None
         for name, f in self.fibers.items():
-            u = f.utilisation if f.utilisation is not None else (np.inf if not f.ok else None)
-            if u is not None and (best is None or u > best[1]):
-                best = (name, u)
-        return best
+            r = f.rank()
+            if r is not None and (best is None or r > best[1]):
+                best = (name, r)
+        return None if best is None else (best[0], best[1][0])
 
 
 @dataclass(frozen=True)
@@ -431,9 +452,12 @@ class StageResult:
         best = None
         for s in self.stations:
             g = s.governing()
-            if g is not None and (best is None or g[1] > best[2]):
-                best = (s, g[0], g[1])
-        return best
+            if g is None:
+                continue
+            r = s.fibers[g[0]].rank()
+            if best is None or r > best[0]:
+                best = (r, s, g[0], g[1])
+        return None if best is None else best[1:]
 
     def governing_at(self, fiber: str) -> tuple[StationResult, float, FiberResult] | None:
         """The station of the highest utilisation of one fiber, that utilisation and result.
@@ -444,12 +468,10 @@ class StageResult:
         best = None
         for st in self.stations:
             fr = st.fibers.get(fiber)
-            if fr is None:
-                continue
-            u = fr.utilisation if fr.utilisation is not None else (None if fr.ok else np.inf)
-            if u is not None and (best is None or u > best[1]):
-                best = (st, float(u), fr)
-        return best
+            r = None if fr is None else fr.rank()
+            if r is not None and (best is None or r > best[0]):
+                best = (r, st, fr)
+        return None if best is None else (best[1], best[0][0], best[2])
 
 
 @dataclass(frozen=True)
@@ -463,11 +485,20 @@ class CheckResult:
     zone: tuple[ZoneStation, ...] = ()
     loads: LoadEffects | None = None
     conditions: tuple[str, ...] = ()  # what a pass presupposes (bonded steel, left-out stresses)
+    other_failures: tuple[str, ...] = ()  # limits exceeded outside the stages (tendon stresses)
 
     @property
     def ok(self) -> bool:
-        """Whether every stage passes."""
-        return all(s.ok for s in self.stages)
+        """Whether every stage passes and no other limit is exceeded."""
+        return all(s.ok for s in self.stages) and not self.other_failures
+
+    def failures(self) -> list[str]:
+        """What fails, in words: each failing stage and its count of stations, then the rest."""
+        return [
+            f"{s.title} ({sum(1 for st in s.stations if not st.ok)} station(s))"
+            for s in self.stages
+            if not s.ok
+        ] + list(self.other_failures)
 
 
 def check_fiber(stress: float, limit: FiberLimit | None, strength: float, sym: str) -> FiberResult:
@@ -914,7 +945,26 @@ def run_check(job: Job, *, cli_libraries: tuple[str, ...] = ()) -> CheckResult:
         zone=tuple(zone),
         loads=load_effects(girder, all_st),
         conditions=tuple(conditions),
+        other_failures=tuple(tendon_limit_failures(girder)),
     )
+
+
+def tendon_limit_failures(girder: Girder) -> list[str]:
+    """Each tendon stress above its limit of AASHTO LRFD Table 5.9.2.2-1, in words.
+
+    A code limit like the stage limits, so it fails the check (the values and the clause are
+    in the losses' notes and the tendon tables).
+    """
+    if not girder.job.post_tensioned:
+        return []
+    from prestress.losses.post_tensioned import tendon_limit_checks
+
+    return [
+        f"tendon {c.tendon}, {c.where}: {c.condition}, above {c.limit_text} "
+        "(AASHTO LRFD Table 5.9.2.2-1)"
+        for c in tendon_limit_checks(girder)
+        if not c.ok
+    ]
 
 
 def check_file(path: str | Path, *, cli_libraries: tuple[str, ...] = ()) -> CheckResult:

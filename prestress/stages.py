@@ -536,8 +536,19 @@ class ZoneStation:
         return lo <= hi and lo - 1e-6 <= self.cgs <= hi + 1e-6
 
     @property
+    def empty(self) -> bool:
+        """Whether no cgs height works here: the lower bound lies above the upper one."""
+        return self.low is not None and self.high is not None and self.low > self.high + 1e-6
+
+    @property
     def margin(self) -> float | None:
-        """Distance from the cgs to the nearer edge (mm; negative outside), None if unbounded."""
+        """Distance from the cgs to the nearer edge (mm; negative outside).
+
+        None if unbounded, or if the band is empty (no height would do: a distance to one
+        edge would suggest a move of the cgs that breaks the other bound).
+        """
+        if self.empty:
+            return None
         edges = [
             v
             for v in (

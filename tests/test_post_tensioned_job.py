@@ -199,6 +199,12 @@ def test_tendon_stress_limits_warn_for_218_ksi(tmp_path: Path) -> None:
     assert any("T1" in w and "exceeds 0.74 fpu = 199.8 ksi" in w for w in warnings)
     assert any("right anchorage (dead end)" in w for w in warnings)
     assert not any("0.90 fpy" in w for w in warnings)  # allowed before seating
+    # a code limit like the stage limits: the check fails and says why
+    assert not r.ok and all(st.ok for st in r.stages)
+    assert any(
+        f.startswith("tendon T1, right anchorage (dead end)") and "above 0.70 fpu" in f
+        for f in r.failures()
+    )
     # the same job in SI units: the values in MPa first (0.70 fpu = 0.70 × 1861.6 = 1303.1
     # MPa), then in ksi (notes are written before --units may change the output units)
     si = _write(tmp_path, text.replace('units = "US"', 'units = "SI"'), "si.toml")
@@ -208,6 +214,7 @@ def test_tendon_stress_limits_warn_for_218_ksi(tmp_path: Path) -> None:
 
 def test_example_meets_the_tendon_stress_limits() -> None:
     r = run_check(load_job(PT))
+    assert r.ok and r.failures() == []
     assert not any(n.startswith("warning") for n in r.notes)
     assert any("tendon stresses within the limits" in n for n in r.notes)
 
@@ -254,3 +261,17 @@ def test_duct_area_ratio_warning(tmp_path: Path) -> None:
     w = [n for n in r.notes if "5.4.6.2" in n]
     assert len(w) == 1 and "T1" in w[0] and "1.51 times" in w[0] and "4.91 in²" in w[0]
     assert not any("5.4.6.2" in n for n in run_check(load_job(PT)).notes)  # 3 in: 2.17
+
+
+def test_tendon_over_its_limit_fails_check_with_exit_1(tmp_path: Path, capsys) -> None:
+    """The verdict, the exit status and the JSON name the tendon (Table 5.9.2.2-1, from memory)."""
+    text = PT.read_text(encoding="utf-8").replace(
+        'jacking_stress = "195 ksi"', 'jacking_stress = "218 ksi"'
+    )
+    job = _write(tmp_path, text)
+    assert main(["check", str(job)]) == 1
+    out = capsys.readouterr().out
+    assert "FAIL: limits exceeded in tendon T1" in " ".join(out.split())
+    assert main(["check", str(job), "--json"]) == 1
+    data = json.loads(capsys.readouterr().out)
+    assert data["ok"] is False and any("Table 5.9.2.2-1" in f for f in data["failures"])

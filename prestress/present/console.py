@@ -418,11 +418,7 @@ def verdict(result: CheckResult) -> str:
                 f"({i}) {escape(c)}" for i, c in enumerate(result.conditions, 1)
             )
         return text + "."
-    failing = [s for s in result.stages if not s.ok]
-    worst = ", ".join(
-        f"{s.title} ({sum(1 for st in s.stations if not st.ok)} station(s))" for s in failing
-    )
-    return f"[bold red]FAIL[/]: limits exceeded in {worst}."
+    return f"[bold red]FAIL[/]: limits exceeded in {escape(', '.join(result.failures()))}."
 
 
 def make_console() -> Console:

@@ -190,6 +190,7 @@ def to_dict(result: CheckResult, system: str | None = None) -> dict[str, Any]:
         ],
         "notes": list(result.notes),
         "ok": result.ok,
+        "failures": result.failures(),
         "conditions": list(result.conditions),
         "caution": CAUTION,
     }

@@ -1458,12 +1458,7 @@ def _governing(result: CheckResult, system: str) -> Section:
     elif result.ok:
         text = f"{verdict}: no limit was checked."
     else:
-        failing = ", ".join(
-            f"{s.title} ({sum(1 for st in s.stations if not st.ok)} station(s))"
-            for s in result.stages
-            if not s.ok
-        )
-        text = f"{verdict}: limits exceeded in {failing}."
+        text = f"{verdict}: limits exceeded in {', '.join(result.failures())}."
     sec.blocks.append(Para(text, "verdict-ok" if result.ok else "verdict-fail"))
     sec.blocks.append(
         Table(
@@ -1491,7 +1486,9 @@ def _zone(result: CheckResult, system: str) -> Section:
             "At each station, the band of cgs heights that keeps both girder fibers within "
             "their limits in every stage, with that stage's force and moments (the classical "
             "kern construction); the margin is the distance from the cgs to the nearer edge "
-            "(negative: outside)."
+            "(negative: outside). NO BAND: the lowest permissible height lies above the "
+            "highest, so no cgs height satisfies every stage there: the prestress force (or the "
+            "loads or limits) must change, not only the cgs."
         )
     )
     rows = []
@@ -1499,7 +1496,11 @@ def _zone(result: CheckResult, system: str) -> Section:
         if z.low is None and z.high is None:
             mark, who, cls = "—", "no prestress developed", ""
         else:
-            mark, cls = ("inside", "ok") if z.inside else ("OUTSIDE", "fail")
+            mark, cls = (
+                ("NO BAND", "fail")
+                if z.empty
+                else (("inside", "ok") if z.inside else ("OUTSIDE", "fail"))
+            )
             who = "; ".join(
                 w
                 for w in (

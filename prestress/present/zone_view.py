@@ -112,7 +112,9 @@ def zone_table(result: CheckResult, system: str, only_outside: bool = False) -> 
         box=box.SIMPLE_HEAD,
         caption=f"Heights in {du} above the girder bottom; x in "
         f"{label(system, 'position')} from the left end; margin: distance from the cgs to "
-        "the nearer edge of the band (negative: outside).",
+        "the nearer edge of the band (negative: outside). NO BAND: the lowest permissible "
+        "height lies above the highest, so no cgs height satisfies every stage there: the "
+        "prestress force (or the loads or limits) must change, not only the cgs.",
         caption_justify="left",
         collapse_padding=True,
         pad_edge=False,
@@ -128,7 +130,11 @@ def zone_table(result: CheckResult, system: str, only_outside: bool = False) -> 
         if z.low is None and z.high is None:
             mark, who = "—", "no prestress developed"
         else:
-            mark = "[green]inside[/]" if z.inside else "[bold red]OUTSIDE[/]"
+            mark = (
+                "[bold red]NO BAND[/]"
+                if z.empty
+                else ("[green]inside[/]" if z.inside else "[bold red]OUTSIDE[/]")
+            )
             who = "; ".join(
                 w
                 for w in (
