@@ -27,7 +27,7 @@ from prestress.sections.composite import (
 )
 from prestress.sections.properties import GrossProperties, ResolvedSection
 from prestress.stages import LoadEffects, ZoneStation, fiber_stress  # noqa: F401  (re-exported)
-from prestress.units import KSI_MPA
+from prestress.units import KSI_MPA, in_both
 
 SIGN_CONVENTION = "tension +, compression −"
 
@@ -644,23 +644,38 @@ def development_lengths(
         ld = m.l_d(kappa, fps, fpe, job.strand.diameter / INCH_MM)
         lengths[debonded] = ld * INCH_MM
         kind = "debonded strands" if debonded else "bonded strands"
+        length = in_both(
+            job.units, f"{ld:.0f} in = {ld / 12:.1f} ft", f"{ld * INCH_MM / 1000:.2f} m"
+        )
         out.append(
-            f"development length of the {kind}: ld = {ld:.0f} in ({ld / 12:.1f} ft, "
-            f"{ld * INCH_MM / 1000:.2f} m; AASHTO LRFD Eq. 5.9.4.3.2-1, κ = {kappa:g}, fps = "
-            f"{fps:.1f} ksi by Eq. 5.6.3.1.1-1 at midspan, fpe = {fpe:.1f} ksi), from the end "
-            "of bonding"
+            f"development length of the {kind}: ld = {length} (AASHTO LRFD Eq. 5.9.4.3.2-1, "
+            f"κ = {kappa:g}, fps = {_ksi_mpa(job.units, fps, decimals=(1, 0))} by Eq. "
+            f"5.6.3.1.1-1 at midspan, fpe = {_ksi_mpa(job.units, fpe, decimals=(1, 0))}), from "
+            "the end of bonding"
         )
     if fpe < 0.5 * job.strand.fpu / KSI_MPA:
         out.append(
-            f"fpe = {fpe:.1f} ksi is below 0.5 fpu: Eq. 5.6.3.1.1-1 for fps (and the development "
-            "length from it) does not apply (AASHTO LRFD 5.6.3.1.1); use strain compatibility"
+            f"fpe = {_ksi_mpa(job.units, fpe, decimals=(1, 0))} is below 0.5 fpu: Eq. "
+            "5.6.3.1.1-1 for fps (and the development length from it) does not apply (AASHTO "
+            "LRFD 5.6.3.1.1); use strain compatibility"
         )
     if job.deck is not None and c > job.deck.thickness / INCH_MM:
+        depth = in_both(job.units, f"{c:.1f} in", f"{c * INCH_MM:.0f} mm")
         out.append(
-            "the neutral axis at nominal resistance lies below the deck (c = "
-            f"{c:.1f} in): fps assumed rectangular behaviour; check T-section behaviour"
+            f"the neutral axis at nominal resistance lies below the deck (c = {depth}): fps "
+            "assumed rectangular behaviour; check T-section behaviour"
         )
     return lengths, out
+
+
+def _ksi_mpa(system: str, ksi: float, sign: str = "", decimals: tuple[int, int] = (3, 2)) -> str:
+    """A stress given in ksi, written in both systems, the job's first.
+
+    ``decimals``: of the ksi and the MPa figures (3 and 2 for concrete stresses; 1 and 0 for
+    strand stresses); ``sign``: "+" to write the sign of tension too.
+    """
+    k, m = decimals
+    return in_both(system, f"{ksi:{sign}.{k}f} ksi", f"{ksi * KSI_MPA:{sign},.{m}f} MPa")
 
 
 #: Stress in the bonded reinforcement that carries the tensile force at release, MPa:
@@ -779,13 +794,16 @@ def release_tension_steel(girder: Girder, stations: list[StationResult]) -> tupl
         return None
     force, st = best
     As = force / RELEASE_STEEL_STRESS_MPA
-    steel = f"{As / INCH_MM**2:.2f} in² ({As:.0f} mm²)"
+    units = girder.job.units
+    steel = in_both(units, f"{As / INCH_MM**2:.2f} in²", f"{As:.0f} mm²")
     note = (
-        f"the tension exceeds 0.0948√f'ci ≤ 0.2 ksi ({lower / KSI_MPA:.3f} ksi, "
-        f"{lower:.2f} MPa) at {st.name}: it is allowed up to 0.24√f'ci only with bonded "
-        f"reinforcement for the tensile force on the uncracked section, {force / KIP_N:.1f} kip "
-        f"({force / 1000:.0f} kN) there, i.e. at least {steel} at 0.5 fy ≤ 30 ksi (AASHTO LRFD "
-        "9th Ed. (2020) Table 5.9.2.3.1b-1, from memory)"
+        f"the tension exceeds 0.0948√f'ci ≤ 0.2 ksi, i.e. "
+        f"{in_both(units, f'{lower / KSI_MPA:.3f} ksi', f'{lower:.2f} MPa')}, at {st.name}: "
+        "it is allowed up to 0.24√f'ci only with bonded reinforcement for the tensile force "
+        "on the uncracked section, "
+        f"{in_both(units, f'{force / KIP_N:.1f} kip', f'{force / 1000:.0f} kN')} there, i.e. "
+        f"at least {steel} at 0.5 fy ≤ 30 ksi (AASHTO LRFD 9th Ed. (2020) Table 5.9.2.3.1b-1, "
+        "from memory)"
     )
     return note, f"bonded reinforcement of at least {steel} in the tension zone at {st.name}"
 
@@ -820,11 +838,9 @@ def deck_shrinkage_notes(girder: Girder, losses: LossBreakdown) -> list[str]:
     f = deck_shrinkage_stresses(one)
     return [
         f"the losses credit the prestress gain from deck shrinkage, but the stresses of the "
-        f"{text} are not applied: {f['girder_bottom'] / KSI_MPA:+.3f} ksi "
-        f"({f['girder_bottom']:+.2f} MPa) at the girder bottom, "
-        f"{f['girder_top'] / KSI_MPA:+.3f} ksi ({f['girder_top']:+.2f} MPa) at its top along "
-        "the span; "
-        "[loads] deck_shrinkage = 1 (or the owner's factor) applies them"
+        f"{text} are not applied: {_ksi_mpa(job.units, f['girder_bottom'] / KSI_MPA, '+')} at "
+        f"the girder bottom, {_ksi_mpa(job.units, f['girder_top'] / KSI_MPA, '+')} at its top "
+        "along the span; [loads] deck_shrinkage = 1 (or the owner's factor) applies them"
     ]
 
 

@@ -8,6 +8,7 @@ key. The job-file format is documented in ``docs/job-file.md`` and by the exampl
 from __future__ import annotations
 
 import itertools
+from contextvars import ContextVar
 from pathlib import Path
 
 import numpy as np
@@ -37,7 +38,28 @@ from prestress.model import (
     Times,
 )
 from prestress.tomlread import Table, read_toml
-from prestress.units import FOOT_MM, INCH_MM, KIP_N, KSI_MPA, LBF_N, to_internal
+from prestress.units import FOOT_MM, INCH_MM, KIP_N, KSI_MPA, LBF_N, in_both, to_internal
+
+#: The units of the job being read ("US" or "SI"), so messages quote values in the user's own
+#: units first; set by :func:`load_job`.
+_JOB_UNITS: ContextVar[str] = ContextVar("job_units", default="US")
+
+
+def _long(mm: float) -> str:
+    """A girder length or position in the job's units: "52.49 ft" or "16.00 m"."""
+    return f"{mm / 1000:.2f} m" if _JOB_UNITS.get() == "SI" else f"{mm / FOOT_MM:.2f} ft"
+
+
+def _short(mm: float) -> str:
+    """A dimension in the job's units: "1.97 in" or "50 mm"."""
+    return f"{mm:.0f} mm" if _JOB_UNITS.get() == "SI" else f"{mm / INCH_MM:.2f} in"
+
+
+def _weight(w: float, decimals: int = 1) -> str:
+    """A unit weight (N/mm³) in both systems, the job's first: "145.0 pcf (22.78 kN/m³)"."""
+    pcf = f"{w * FOOT_MM**3 / LBF_N:.{decimals}f} pcf"
+    return in_both(_JOB_UNITS.get(), pcf, f"{w * 1e6:.2f} kN/m³")
+
 
 #: Loss methods the job may choose (see ``prestress.losses``).
 LOSS_METHODS = tuple(METHOD_MODULES)
@@ -100,18 +122,17 @@ def _concrete(t: Table, name: str, *, at_transfer: bool) -> Concrete:
                     "a unit weight within the range of the "
                     "modulus formula (AASHTO 5.4.2.4: 90 to 155 pcf; ACI 318-19: 90 to "
                     "160 pcf)",
-                    f"{w_mod * 304.8**3 / 4.4482216152605:.0f} pcf",
+                    _weight(w_mod),
                 ) from None
             raise t.error("modulus", f"inputs within the formula's range ({exc})") from None
         source = MODULUS_FORMULAS[formula]
         if formula in ("aashto", "aci318"):
-            w_pcf = w_mod * FOOT_MM**3 / LBF_N
-            source += f", wc = {w_pcf:.1f} pcf ({w_mod * 1e6:.2f} kN/m³)"
+            source += f", wc = {_weight(w_mod)}"
             source += f", K1 = {K1:g}" if formula == "aashto" else ""
         if formula in ("aashto", "aci318") and not w_mod_given and w > plain_concrete_weight(fc):
             note = (
                 f"the {name} modulus uses the dead-load unit weight "
-                f"{w * FOOT_MM**3 / LBF_N:.0f} pcf ({w * 1e6:.2f} kN/m³); the modulus formula "
+                f"{_weight(w, 0)}; the modulus formula "
                 "takes the weight of the concrete itself (AASHTO LRFD Table 3.5.1-1: 0.145 kcf up "
                 "to 5 ksi, 0.140 + 0.001 f'c kcf from 5 to 15 ksi, reinforcement adding 0.005 "
                 f"kcf for dead load; from memory): give {t.field('modulus_unit_weight')} to set it"
@@ -169,9 +190,7 @@ def plain_concrete_weight(fc: float) -> float:
 def _strand(t: Table) -> Strand:
     d = t.quantity("diameter", "length", positive=True)
     if not 5.0 <= d <= 30.0:
-        raise t.error(
-            "diameter", "a strand diameter from 0.2 to 1.2 in (5 to 30 mm)", f"{d / 25.4:.3g} in"
-        )
+        raise t.error("diameter", "a strand diameter from 0.2 to 1.2 in (5 to 30 mm)", _short(d))
     area = t.quantity("area", "area", positive=True)
     if not 10.0 <= area <= 700.0:
         raise t.error(
@@ -444,7 +463,7 @@ def _diaphragms(ld: Table, span: float) -> tuple[tuple[float, float], ...]:
             raise d.error(
                 "at",
                 "a position on the span, measured from the left bearing",
-                f"{at / 304.8:.2f} ft on a {span / 304.8:.2f} ft span",
+                f"{_long(at)} on a {_long(span)} span",
             )
         out.append((at, d.quantity("weight", "force", positive=True)))
         d.done()
@@ -576,7 +595,7 @@ def _hold_downs(h: Table, length: float) -> tuple[float, float]:
         raise h.error(
             "hold_downs" if h.has("hold_downs") else "hold_down",
             "hold-down points within the girder, left one first",
-            f"{a / 304.8:.2f} ft and {b / 304.8:.2f} ft on a {length / 304.8:.2f} ft girder",
+            f"{_long(a)} and {_long(b)} on a {_long(length)} girder",
         )
     return a, b
 
@@ -626,7 +645,7 @@ def _row(r: Table, index: int, length: float) -> StrandRow:
                 raise d.error(
                     key if d.has(key) else "left",
                     "a debonded length shorter than half the girder length",
-                    f"{v / 304.8:.2f} ft",
+                    _long(v),
                 )
         if d.has("positions"):
             raw = d.raw("positions")
@@ -752,7 +771,7 @@ def build_layout(
     """The strand sets of the rows: bonded, debonded groups and harped rows."""
     sets = []
     for i, row in enumerate(rows):
-        label = f"row {i + 1} at {row.height / 25.4:.2f} in"
+        label = f"row {i + 1} at {_short(row.height)}"
         deb = {k for idx, _l, _r in row.debond for k in idx}
         bonded = tuple(x for k, x in enumerate(row.x) if k not in deb)
         if row.harp is not None:
@@ -777,7 +796,7 @@ def build_layout(
         for idx, left, right in row.debond:
             sets.append(
                 StrandSet(
-                    f"{label}, debonded {left / 304.8:.3g} ft",
+                    f"{label}, debonded {_long(left)}",
                     i,
                     tuple(row.x[k] for k in idx),
                     area,
@@ -829,9 +848,20 @@ def _effective_width(
 def load_job(path: str | Path) -> Job:
     """Read and validate a job file; raise InputError naming the field on any mistake."""
     path = Path(path)
-    file = str(path)
-    top = Table(read_toml(path), file=file)
+    top = Table(read_toml(path), file=str(path))
+    header = top.data.get("job")
+    units = header.get("units") if isinstance(header, dict) else None
+    units = units.upper() if isinstance(units, str) else units
+    token = _JOB_UNITS.set(units if units in ("US", "SI") else "US")
+    try:
+        return _read_job(path, top)
+    finally:
+        _JOB_UNITS.reset(token)
 
+
+def _read_job(path: Path, top: Table) -> Job:
+    """The job file's tables, read in order (see :func:`load_job`)."""
+    file = str(path)
     job = top.table("job")
     assert job is not None
     title = job.string("title")
@@ -859,16 +889,14 @@ def load_job(path: str | Path) -> Job:
     length = g.quantity("length", "length", positive=True)
     span = g.quantity("span", "length", positive=True)
     if span > length:
-        raise g.error(
-            "span", "a design span no longer than the girder length", f"{span / 304.8:.4g} ft"
-        )
+        raise g.error("span", "a design span no longer than the girder length", _long(span))
     if not 1000.0 <= length <= 100_000.0:
         raise g.error("length", "a girder length from 1 m to 100 m (3.3 to 330 ft)")
     if span < 0.5 * length:
         raise g.error(
             "span",
             "a design span of at least half the girder length (bearings near the ends)",
-            f"{span / 304.8:.4g} ft on a {length / 304.8:.4g} ft girder",
+            f"{_long(span)} on a {_long(length)} girder",
         )
     spacing = g.quantity("spacing", "length", None, positive=True)
     position = g.string("position", "interior", choices=("interior", "exterior"))
@@ -918,7 +946,7 @@ def load_job(path: str | Path) -> Job:
         raise st.error(
             "transfer_length",
             "a transfer length shorter than half the girder",
-            f"{lt / 304.8:.3g} ft",
+            _long(lt),
         )
     lt_source = (
         "AASHTO LRFD 9th Ed. (2020) 5.9.4.3.1 (60 d_b)" if lt == lt_default else "given in the job"

@@ -453,6 +453,15 @@ def from_internal(value: float, system: str, role: str) -> float:
     return value / SYSTEMS[system][role].factor
 
 
+def in_both(system: str, us: str, si: str) -> str:
+    """A value written in both systems, the job's own first: "12.7 ft (3.88 m)" or the reverse.
+
+    Notes and messages are written once, before ``--units`` may change the tables' units,
+    so they carry both; ``system`` is the job's ("US" or "SI").
+    """
+    return f"{si} ({us})" if system == "SI" else f"{us} ({si})"
+
+
 def ascii_label(label: str) -> str:
     """Return a plain-ASCII, pint-parsable rendering of a unit label."""
     return ASCII.get(label, label)

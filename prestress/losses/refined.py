@@ -15,7 +15,7 @@ from prestress.codes.aashto_lrfd import refined_losses as rl
 from prestress.errors import InputError
 from prestress.losses import LossBreakdown, LossComponent, register
 from prestress.losses.pretensioned import before_transfer, elastic_shortening_component, finish
-from prestress.units import INCH_MM, KIP_N, KSI_MPA
+from prestress.units import INCH_MM, KIP_N, KSI_MPA, in_both
 
 if TYPE_CHECKING:
     from prestress.analysis import Girder
@@ -144,10 +144,10 @@ def deck_shrinkage_force(girder: Girder) -> tuple[float, str]:
     psi_d = float(cs.psi(t.final - t.deck_placement, 1.0, vs, t.relative_humidity, fci_d))
     A_d = deck.effective_width * deck.thickness
     F = eps * A_d * deck.concrete.Ec / (1.0 + 0.7 * psi_d)
+    force = in_both(job.units, f"{F / KIP_N:.0f} kip", f"{F / 1000:.0f} kN")
     text = (
-        f"deck shrinkage restraint force F = εddf Ad Ecd / (1 + 0.7 ψd) = {F / KIP_N:.0f} kip "
-        f"({F / 1000:.0f} kN) with εddf = {eps:.3e}, ψd = {psi_d:.3f} ({CLAUSE} Eq. "
-        "5.9.3.4.3d-2 with 5.4.2.3)"
+        f"deck shrinkage restraint force F = εddf Ad Ecd / (1 + 0.7 ψd) = {force} with "
+        f"εddf = {eps:.3e}, ψd = {psi_d:.3f} ({CLAUSE} Eq. 5.9.3.4.3d-2 with 5.4.2.3)"
     )
     return F, text
 

@@ -45,10 +45,14 @@ def fmt(v: float | None, system: str, role: str, digits: int = 3) -> str:
     if mag < 0.5 * 10**-digits:
         return "0"
     big = 1e6 if role in ("modulus", "inertia") and "mm" in label(system, role) else 1e9
-    if mag >= big:  # engineering notation: 227.2×10⁹ mm⁴, 158.9×10⁶ mm³
+    if mag >= big:  # engineering notation, four figures: 227.2×10⁹ mm⁴, 1.127×10⁹ mm³
         k = 3 * (math.floor(math.log10(mag)) // 3)
+        m = x / 10**k
+        decimals = 3 - math.floor(math.log10(abs(m)))
+        if abs(round(m, decimals)) >= 1000.0:  # 999.96×10⁶ prints as 1.000×10⁹
+            k, m, decimals = k + 3, m / 1000.0, 3
         sup = str(k).translate(str.maketrans("0123456789-", "⁰¹²³⁴⁵⁶⁷⁸⁹⁻"))
-        return f"{x / 10**k:.1f}×10{sup}".replace("-", "−")
+        return f"{m:.{decimals}f}×10{sup}".replace("-", "−")
     # decimals by magnitude, never more for a larger number, judged on the number as it will
     # be printed (99.996 prints as "100.0", not "100.00"); a true minus sign
     text = f"{x:.{digits}f}"

@@ -1,0 +1,30 @@
+"""Numbers on screen: enough figures for a reviewer to recompute, a true minus sign.
+
+Four significant figures for section properties in engineering notation (common practice:
+tables of section properties give three to four figures; a rounded 1.1×10⁹ mm³ hides a 2.5 %
+difference a reviewer could not recover).
+"""
+
+from __future__ import annotations
+
+import pytest
+
+from prestress.present.common import fmt
+
+
+@pytest.mark.parametrize(
+    ("mm3", "text"),
+    [
+        (1.127e9, "1.127×10⁹"),
+        (931.5e6, "931.5×10⁶"),
+        (158.9e6, "158.9×10⁶"),
+        (12.34e9, "12.34×10⁹"),
+        (999.96e6, "1.000×10⁹"),  # rounds up into the next power
+    ],
+)
+def test_engineering_notation_keeps_four_figures(mm3: float, text: str) -> None:
+    assert fmt(mm3, "SI", "modulus") == text
+
+
+def test_negative_numbers_carry_a_true_minus() -> None:
+    assert fmt(-1.5, "SI", "stress") == "−1.50"
