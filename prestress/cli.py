@@ -276,6 +276,15 @@ def cmd_check(args: argparse.Namespace) -> int:
         stations = None
         if args.stations:
             stations = tuple(w.strip() for w in args.stations.split(",") if w.strip())
+            names = list(dict.fromkeys(st.name for sr in result.stages for st in sr.stations))
+            for word in stations:
+                if not any(word.lower() in n.lower() for n in names):
+                    raise InputError(
+                        "words found in the job's station names: " + ", ".join(names),
+                        file="command line",
+                        field="--stations",
+                        got=repr(word),
+                    )
         render(result, make_console(), system, stages=stages, stations=stations)
     return EXIT_OK if result.ok else EXIT_FAIL
 
@@ -323,15 +332,10 @@ def cmd_design(args: argparse.Namespace) -> int:
     from prestress.present.console import make_console
 
     result = design_file(args.job, cli_libraries=tuple(args.library))
-    if args.write:
-        if not result.ok:
-            raise InputError(
-                "a search space with a passing pattern before --write",
-                file=str(args.job),
-                field="design",
-                got="no pattern passes",
-            )
+    if args.write and result.ok:
         write_design_job(args.job, result.leanest, args.write, force=args.force)
+    elif args.write:  # the search itself is shown, as without --write; nothing is written
+        print(f"prestress: no pattern passes: {args.write} not written", file=sys.stderr)
     if args.json:
         data = design_view.to_dict(result, args.units)
         data["caution"] = CAUTION
@@ -339,7 +343,7 @@ def cmd_design(args: argparse.Namespace) -> int:
     else:
         console = make_console()
         design_view.render(result, console, args.units)
-        if args.write:
+        if args.write and result.ok:
             console.print(f"wrote the leanest passing pattern to {args.write}")
     return EXIT_OK if result.ok else EXIT_FAIL
 

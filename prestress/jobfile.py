@@ -660,6 +660,12 @@ def _row(r: Table, index: int, length: float) -> StrandRow:
                     f"strand numbers from 1 to {len(xs)} (left to right) in the row, each once",
                 )
             idx = tuple(k - 1 for k in raw)
+            if d.has("count") and d.integer("count", low=1, high=200) != len(raw):
+                raise d.error(
+                    "count",
+                    f"the number of strands listed in positions ({len(raw)}), or no count",
+                    str(d.raw("count")),
+                )
             d.raw("count", None)
         else:
             idx = (d.integer("count", low=1, high=200),)  # resolved below, inner strands first

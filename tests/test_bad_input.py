@@ -84,6 +84,13 @@ CASES = [
         "nope.toml",
         ["limits.file", "no file"],
     ),
+    (
+        "debond count disagrees with positions",
+        'count = 12\nspacing = "2 in"\n',
+        'count = 12\nspacing = "2 in"\n'
+        'debond = [ { count = 3, length = "5 ft", positions = [5, 8] } ]\n',
+        ["strands.rows[0].debond[0].count", "positions (2)", "got 3"],
+    ),
 ]
 
 

@@ -249,3 +249,13 @@ def test_exit_status_1_when_a_limit_is_exceeded(tmp_path) -> None:
     data = json.loads(out.read_text(encoding="utf-8"))
     assert data["ok"] is False
     assert data["stages"][0]["ok"] is False  # too much prestress at release
+
+
+def test_stations_filter_that_matches_nothing_is_an_error(capsys) -> None:
+    """`--stations` with a word found in no station name says so (it used to print nothing)."""
+    assert main(["check", str(US_EXAMPLE), "--stations", "0.5 span"]) == 2
+    err = capsys.readouterr().err
+    assert "--stations" in err and "midspan" in err and "'0.5 span'" in err
+    assert len(err.strip().splitlines()) == 1
+    assert main(["check", str(US_EXAMPLE), "--stations", "mid"]) == 0
+    assert "midspan" in capsys.readouterr().out

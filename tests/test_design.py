@@ -504,3 +504,17 @@ def test_written_job_in_another_folder_keeps_its_references(tmp_path) -> None:
     out.parent.mkdir()
     write_design_job(src, result.leanest, out)
     assert run_check(load_job(out)).ok
+
+
+def test_write_with_no_passing_pattern_shows_the_search_and_writes_nothing(
+    tmp_path: Path, capsys: pytest.CaptureFixture[str]
+) -> None:
+    """Nothing passes: the search is still shown (exit 1, a failing verdict), no file written."""
+    from prestress.cli import main
+
+    src = write_rect(tmp_path, live="5000 kip*ft")
+    out = tmp_path / "never.toml"
+    assert main(["design", str(src), "--write", str(out)]) == 1
+    captured = capsys.readouterr()
+    assert "No pattern of the space passes" in captured.out
+    assert "not written" in captured.err and not out.exists()
