@@ -163,18 +163,24 @@ def stage_specs(girder: Girder) -> list[StageSpec]:
                     limits_key="handling",
                 )
             )
+    has_deck = job.deck is not None
     specs.append(
         StageSpec(
             "deck_placement",
-            "Deck placement on the girder alone",
+            "Deck placement on the girder alone"
+            if has_deck
+            else "Added dead load on the girder (no deck)",
             "deck_placement",
             "bearings",
             1.0,
             0.0,
             ("girder", "deck", "diaphragms"),
             "fc",
-            "prestress at deck placement; girder, deck, haunch and diaphragm "
-            "weights on the girder alone, on its bearings",
+            "prestress at deck placement; girder, deck, haunch and diaphragm weights on the "
+            "girder alone, on its bearings"
+            if has_deck
+            else "prestress at time.deck_placement; girder weight, other non-composite load "
+            "and diaphragms on the girder, on its bearings",
         )
     )
     dead_loads = LOAD_KEYS

@@ -144,3 +144,16 @@ def test_compare_marks_what_is_not_in_the_total(capsys, monkeypatch) -> None:
             assert {"deck_shrinkage_gain", "deck_creep", "shrinkage_after_deck"} <= keys
             gain = m["by_mechanism"]["deck_shrinkage_gain"]["value"]
             assert gain < 0.0
+
+
+def test_a_girder_without_deck_is_not_described_with_one(tmp_path: Path, capsys) -> None:
+    """No deck: the second stage is the added dead load, no composite caption (common practice)."""
+    start, end = BASE.index("[deck]"), BASE.index("[strand]")
+    job = tmp_path / "nodeck.toml"
+    job.write_text(BASE[:start] + BASE[end:], encoding="utf-8")
+    assert main(["check", str(job)]) in (0, 1)
+    out = " ".join(capsys.readouterr().out.split())
+    assert "Added dead load on the girder (no deck)" in out
+    assert "Deck placement on the girder alone" not in out
+    assert "Composite: deck transformed" not in out and "No deck: every load" in out
+    assert "Other non-composite load" in out and "Deck: other non-composite load" in out

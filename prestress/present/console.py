@@ -145,7 +145,9 @@ def properties(result: CheckResult, system: str) -> Table:
         box=box.SIMPLE_HEAD,
         collapse_padding=True,
         caption="Composite: deck transformed into girder concrete by n; "
-        "V/S with every outer face exposed.",
+        "V/S with every outer face exposed."
+        if c is not None
+        else "No deck: every load on the girder alone. V/S with every outer face exposed.",
         caption_justify="left",
     )
     t.add_column("Property")
@@ -175,7 +177,12 @@ def properties(result: CheckResult, system: str) -> Table:
     row("Depth", gross.height, c.fibers["deck_top"] if c else None, "dimension")
     row("Volume-to-surface V/S", gross.volume_to_surface, None, "dimension")
     row("Girder self-weight", g.self_weight, None, "line_load")
-    row("Non-composite dead load (deck, haunch)", g.deck_weight, None, "line_load")
+    row(
+        "Non-composite dead load (deck, haunch)" if c is not None else "Other non-composite load",
+        g.deck_weight,
+        None,
+        "line_load",
+    )
     return t
 
 
@@ -273,7 +280,13 @@ def loads_table(
         collapse_padding=True,
         caption=(
             f"x: {label(system, 'position')} from the left bearing. Moments: {mu}, sagging +."
-            f"{shear} Deck: deck and haunch; DC: barriers and other superimposed dead load; "
+            f"{shear} "
+            + (
+                "Deck: deck and haunch"
+                if result.girder.job.deck is not None
+                else "Deck: other non-composite load (no deck)"
+            )
+            + "; DC: barriers and other superimposed dead load; "
             f"DW: wearing surface. {loads_caption(result)}"
         ),
         caption_justify="left",

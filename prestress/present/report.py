@@ -42,6 +42,7 @@ from prestress.present.common import (
     fmt,
     label,
     live_load_text,
+    loads_caption,
     signed,
     stage_limits,
     value,
@@ -1370,7 +1371,10 @@ def _loads(result: CheckResult, system: str) -> Section | None:
     sec = Section("loads", "Moments and shears per girder")
     pu, mu, fu = label(system, "position"), label(system, "moment"), label(system, "force")
     keys = [k for k in LOAD_TITLES if k in le.moments and le.moments[k].any()]
-    head = ["Station", f"x from bearing ({pu})", *[f"{LOAD_TITLES[k]} ({mu})" for k in keys]]
+    titles = dict(LOAD_TITLES)
+    if result.girder.job.deck is None:
+        titles["deck"] = "Other non-composite"
+    head = ["Station", f"x from bearing ({pu})", *[f"{titles[k]} ({mu})" for k in keys]]
     if le.shear_live is not None:
         head += [f"V LL+IM max ({fu})", f"V LL+IM min ({fu})"]
     a = result.girder.job.bearing_offset
@@ -1386,9 +1390,7 @@ def _loads(result: CheckResult, system: str) -> Section | None:
             tuple(head),
             tuple(rows),
             "Unfactored moments (sagging +) and live-load shears (+ where the girder left of "
-            "the section is pushed up). Girder weight on the bearings; deck, haunch and "
-            "diaphragms on the girder alone; barriers (DC), wearing surface (DW) and live load "
-            "on the composite section.",
+            f"the section is pushed up). {loads_caption(result)}",
             "wide",
         )
     )
