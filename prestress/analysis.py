@@ -105,6 +105,16 @@ def resolve_girder(job: Job, *, cli_libraries: tuple[str, ...] = ()) -> Girder:
         )
         name, source, family = entry.name, entry.source, entry.family
     _check_strands_inside(job, resolved)
+    if job.layout is not None:  # harped strands: their whole path inside the concrete
+        from prestress.layout import check_harp_paths
+
+        check_harp_paths(
+            job.layout,
+            resolved.polygon(),
+            job.strand.diameter / 2.0,
+            file=job.file,
+            system=job.units,
+        )
     for concrete in (job.girder_concrete, job.deck.concrete if job.deck else None):
         if concrete is not None and concrete.modulus_note:
             notices.append(concrete.modulus_note)

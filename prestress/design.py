@@ -12,6 +12,10 @@ The search space is stated, finite and enumerated in full (never sampled):
   ``max_strands`` is searched;
 - per level, in ``mode = "harp"``: every number of harped strands 0..N (whole groups), taken
   from the highest filled positions nearest the axis, with one end height and hold-down pair;
+  only positions whose straight path to every place of the end column (on the girder axis)
+  stays inside the concrete with a strand radius of cover may be harped (decided once per
+  grid, :func:`prestress.layout.paths_to_column_inside`), so a harped strand never leaves the
+  web on its way to the end (:func:`prestress.layout.harp_path_error`);
   in ``mode = "debond"``: every symmetric debonding pattern with a small set of debonded
   lengths: in each row 0..m inner groups (the row's outermost group stays bonded), the
   innermost with the longest length, within the detailing rules of
@@ -58,7 +62,7 @@ from typing import TYPE_CHECKING, Any
 import numpy as np
 
 from prestress.errors import InputError
-from prestress.layout import DEBOND_RULES, Layout, StrandSet
+from prestress.layout import DEBOND_RULES, Layout, StrandSet, paths_to_column_inside
 from prestress.model import Job, StrandRow
 from prestress.tomlread import Table, read_toml
 from prestress.units import FOOT_MM, INCH_MM, to_internal
@@ -139,6 +143,8 @@ class DesignSpace:
         max_candidates: the bound on the space's size.
         sources: where the grid came from, by item.
         notes: remarks (positions left out, caps).
+        harp_groups: per row, the groups of ``row_groups`` that may be harped: those whose
+            path to every place of the end column stays inside the concrete (harp mode).
     """
 
     mode: str
@@ -155,11 +161,43 @@ class DesignSpace:
     max_candidates: int
     sources: dict[str, str] = field(default_factory=dict)
     notes: tuple[str, ...] = ()
+    harp_groups: tuple[tuple[tuple[float, ...], ...], ...] = ()
 
     @property
     def capacity(self) -> int:
         """Number of strand positions of the grid that fit in the section."""
         return sum(len(g) for groups in self.row_groups for g in groups)
+
+
+def harpable_groups(
+    poly: Any,
+    heights: tuple[float, ...] | list[float],
+    row_groups: tuple[tuple[tuple[float, ...], ...], ...] | list[tuple[tuple[float, ...], ...]],
+    column: tuple[float, float],
+    radius: float,
+) -> tuple[tuple[tuple[float, ...], ...], ...]:
+    """Per row, the symmetric groups whose strands may be harped (mm).
+
+    A strand may be harped from a grid position when its straight path to every place of the
+    end column (``column``: lowest and highest end heights on the axis) lies inside the
+    concrete with a strand radius of cover (:func:`prestress.layout.paths_to_column_inside`);
+    a group only when all its strands may. Decided once for the whole grid (one vectorised
+    shapely call), so every candidate's harped strands keep their path inside the web
+    whatever place of the column they take.
+    """
+    points = [
+        (x, h) for h, groups in zip(heights, row_groups, strict=True) for g in groups for x in g
+    ]
+    ok = iter(paths_to_column_inside(poly, points, column, radius).tolist())
+    out = []
+    for groups in row_groups:
+        keep = []
+        for g in groups:
+            flags = [next(ok) for _ in g]
+            if all(flags):
+                keep.append(g)
+        out.append(tuple(keep))
+    return tuple(out)
 
 
 def _fits(poly: Any, x: float, y: float, radius: float) -> bool:
@@ -359,6 +397,7 @@ def read_design(raw: Any, job: Job, girder: Girder, *, file: str = "") -> Design
     # harping
     harp = None
     max_harped: int | None = None
+    harp_groups: tuple[tuple[tuple[float, ...], ...], ...] = ()
     h_tab = t.table("harp", required=False)
     if h_tab is not None and mode != "harp":
         raise t.error("harp", "a harp table only with mode = 'harp'", f"mode = '{mode}'")
@@ -396,6 +435,13 @@ def read_design(raw: Any, job: Job, girder: Girder, *, file: str = "") -> Design
             max_harped = t.integer("max_harped", low=0)
         else:
             t.raw("max_harped", None)
+        # the places of the end column a harped strand may take: as many as may be harped
+        in_column = min(fit, max_strands, fit if max_harped is None else max_harped)
+        if in_column > 0:
+            column = (end - (in_column - 1) * step, end)
+            harp_groups = harpable_groups(poly, heights, row_groups, column, radius)
+        else:
+            harp_groups = tuple(() for _ in heights)
     else:
         if t.has("max_harped"):
             raise t.error("max_harped", "max_harped only with mode = 'harp'", f"mode = '{mode}'")
@@ -465,6 +511,7 @@ def read_design(raw: Any, job: Job, girder: Girder, *, file: str = "") -> Design
         max_candidates=max_candidates,
         sources=sources,
         notes=tuple(notes),
+        harp_groups=harp_groups,
     )
 
 
@@ -480,15 +527,21 @@ class Level:
         strands: number of strands.
         filled: per grid row, the filled positions (ascending x).
         groups: per grid row, the filled symmetric groups, centre out.
+        harpable: per grid row, the filled groups that may be harped (their path to the end
+            column stays inside the concrete), centre out; harp mode only.
     """
 
     strands: int
     filled: tuple[tuple[float, ...], ...]
     groups: tuple[tuple[tuple[float, ...], ...], ...]
+    harpable: tuple[tuple[tuple[float, ...], ...], ...] = ()
 
     def harp_order(self) -> list[tuple[int, tuple[float, ...]]]:
-        """Groups in the order they are harped: highest row first, each from the centre out."""
-        return [(i, g) for i in reversed(range(len(self.groups))) for g in self.groups[i]]
+        """Groups in the order they are harped: highest row first, each from the centre out.
+
+        Only the groups that may be harped (:attr:`harpable`).
+        """
+        return [(i, g) for i in reversed(range(len(self.harpable))) for g in self.harpable[i]]
 
 
 def fill_levels(space: DesignSpace) -> list[Level]:
@@ -505,11 +558,19 @@ def fill_levels(space: DesignSpace) -> list[Level]:
         if count > space.max_strands:
             break
         if count >= space.min_strands:
+            harpable = (
+                tuple(
+                    tuple(g for g in gs if g in space.harp_groups[r]) for r, gs in enumerate(groups)
+                )
+                if space.harp_groups
+                else ()
+            )
             out.append(
                 Level(
                     count,
                     tuple(tuple(sorted(f)) for f in filled),
                     tuple(tuple(gs) for gs in groups),
+                    harpable,
                 )
             )
     return out
@@ -1344,6 +1405,10 @@ def _describe(space: DesignSpace, enum: Enumeration, system: str) -> tuple[tuple
         hp = space.harp
         assert hp is not None
         cap = "" if space.max_harped is None else f", at most {space.max_harped}"
+        per_row_h = ", ".join(
+            f"{ln(h)}: {sum(len(g) for g in gs)}"
+            for h, gs in zip(space.heights, space.harp_groups, strict=True)
+        )
         lines.append(
             (
                 "harped strands",
@@ -1351,6 +1416,13 @@ def _describe(space: DesignSpace, enum: Enumeration, system: str) -> tuple[tuple
                 f"nearest the axis{cap}; at most {hp.max_in_column} fit the end column; end height "
                 f"{ln(hp.end_height)}, end spacing {ln(hp.end_spacing)}, hold-downs at "
                 f"{pos(hp.hold_downs[0])} and {pos(hp.hold_downs[1])} ({hp.source})",
+            )
+        )
+        lines.append(
+            (
+                "harpable positions",
+                "harped strands only from positions whose path to the end column stays inside "
+                f"the web (inside the concrete with a strand radius of cover): {per_row_h}",
             )
         )
     if space.mode == "debond":

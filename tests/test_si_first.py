@@ -32,9 +32,7 @@ def test_notes_of_a_us_job_quote_us_first() -> None:
 
 
 def test_an_si_job_error_quotes_metres(tmp_path: Path) -> None:
-    text = SI_EXAMPLE.read_text(encoding="utf-8").replace(
-        'span = "24.384 m"', 'span = "26 m"'
-    )
+    text = SI_EXAMPLE.read_text(encoding="utf-8").replace('span = "24.384 m"', 'span = "26 m"')
     with pytest.raises(InputError) as err:
         load_job(write_job(tmp_path, text))
     assert "got 26.00 m" in str(err.value) and "ft" not in str(err.value)
