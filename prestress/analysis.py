@@ -805,7 +805,7 @@ def release_tension_steel(girder: Girder, stations: list[StationResult]) -> tupl
     force, st = best
     As = force / RELEASE_STEEL_STRESS_MPA
     units = girder.job.units
-    steel = in_both(units, f"{As / INCH_MM**2:.2f} in²", f"{As:.0f} mm²")
+    steel = in_both(units, f"{As / INCH_MM**2:.2f} in²", f"{As:,.0f} mm²")
     note = (
         f"the tension exceeds 0.0948√f'ci ≤ 0.2 ksi, i.e. "
         f"{in_both(units, f'{lower / KSI_MPA:.3f} ksi', f'{lower:.2f} MPa')}, at {st.name}: "
