@@ -9,6 +9,7 @@ compression negative; eccentricity positive below the centroid; sagging moment p
 
 from __future__ import annotations
 
+import math
 from dataclasses import dataclass, field
 from pathlib import Path
 
@@ -407,6 +408,19 @@ class FiberResult:
         return (float(u), 0.0)
 
 
+def rank_beats(a: tuple[float, float], b: tuple[float, float] | None) -> bool:
+    """Whether rank a (:meth:`FiberResult.rank`) is clearly higher than rank b.
+
+    Beyond round-off (relative 1e-9), so that ties (the two halves of a symmetric girder)
+    go to the first station in any unit system.
+    """
+    if b is None:
+        return True
+    if a[0] == b[0] or abs(a[0] - b[0]) <= 1e-9 * abs(b[0]) + 1e-12:
+        return a[1] > b[1] + 1e-9 * abs(b[1]) + 1e-9
+    return a[0] > b[0]
+
+
 @dataclass(frozen=True)
 class StationResult:
     """One station of one stage."""
@@ -435,7 +449,7 @@ class StationResult:
         best = None
         for name, f in self.fibers.items():
             r = f.rank()
-            if r is not None and (best is None or r > best[1]):
+            if r is not None and rank_beats(r, None if best is None else best[1]):
                 best = (name, r)
         return None if best is None else (best[0], best[1][0])
 
@@ -465,7 +479,8 @@ class StageResult:
             if g is None:
                 continue
             r = s.fibers[g[0]].rank()
-            if best is None or r > best[0]:
+            assert r is not None
+            if rank_beats(r, None if best is None else best[0]):
                 best = (r, s, g[0], g[1])
         return None if best is None else best[1:]
 
@@ -479,7 +494,7 @@ class StageResult:
         for st in self.stations:
             fr = st.fibers.get(fiber)
             r = None if fr is None else fr.rank()
-            if r is not None and (best is None or r > best[0]):
+            if r is not None and rank_beats(r, None if best is None else best[0]):
                 best = (r, st, fr)
         return None if best is None else (best[1], best[0][0], best[2])
 
@@ -751,21 +766,31 @@ def deck_shrinkage_left_out(girder: Girder, losses: LossBreakdown, all_stations)
     if not any(c.key == "deck_shrinkage_gain" for c in losses.components):
         return ""
     one = replace(girder, job=replace(job, loads=replace(job.loads, deck_shrinkage=1.0)))
-    best: tuple[float, str, str, str] | None = None
+    best: tuple[tuple[float, float], str, str, str, FiberResult] | None = None
     for spec in stage_specs(one):
         if "deck_shrinkage" not in spec.loads:
             continue
         for st in station_results(one, spec, stage_stresses(one, losses, spec, all_stations)):
             g = st.governing()
-            if g is not None and (best is None or g[1] > best[0] * (1 + 1e-9) + 1e-12):
-                best = (g[1], spec.title, g[0], st.name)
+            if g is None:
+                continue
+            fr = st.fibers[g[0]]
+            r = fr.rank()
+            assert r is not None
+            if rank_beats(r, None if best is None else best[0]):
+                best = (r, spec.title, g[0], st.name, fr)
     if best is None:
         return ""
-    use, title, fiber, where = best
-    verdict = "still within the limits" if use <= 1.0 + 1e-12 else "EXCEEDED"
+    (use, _), title, fiber, where, fr = best
+    verdict = "still within the limits" if fr.ok else "EXCEEDED"
+    if math.isinf(use):  # a stress of the sign of a zero limit (decompression)
+        stress = _ksi_mpa(job.units, fr.stress / KSI_MPA, "+")
+        amount = f"{stress} against a zero tension limit"
+    else:
+        amount = f"highest utilisation {use:.2f}"
     return (
-        "the deck-shrinkage stresses left out (with them: highest utilisation "
-        f"{use:.2f}, {title}, {fiber.replace('_', ' ')} at {where}: {verdict})"
+        f"the deck-shrinkage stresses left out (with them: {amount}, {title}, "
+        f"{fiber.replace('_', ' ')} at {where}: {verdict})"
     )
 
 
