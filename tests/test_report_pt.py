@@ -242,8 +242,8 @@ def test_every_plot_kind_draws_a_post_tensioned_girder(
     assert root.tag == f"{SVG_NS}svg"
     assert len(list(root.iter(f"{SVG_NS}path"))) > 5
     text = out.read_text(encoding="utf-8")
-    if kind == "section":  # 45 strands, drawn at the centres of their 3 ducts
-        assert "tendons at midlength" in text and "45 strands" in text
+    if kind == "section":  # 45 strands in 3 ducts drawn to scale
+        assert "tendon ducts at midlength" in text and "45 strands" in text
     if kind == "zone":
         assert "tendon profiles" in text
     if kind == "losses":  # jacked at 195 ksi at 28 days (no casting bed, no 202.5 ksi)
@@ -275,12 +275,16 @@ def test_magnel_lines_of_a_post_tensioned_girder_reproduce_the_check(pt: CheckRe
         assert (g <= 0) == st.fibers[ln.fiber].ok
 
 
-def test_section_plot_strands_at_the_duct_centres(pt: CheckResult) -> None:
-    pts = plots.tendon_strands_at_midlength(pt)
-    assert len(pts) == 45
-    # heights at midlength: the low points of the job file, 12.5, 8.5 and 4.5 in
-    heights = sorted({round(y / INCH_MM, 6) for _, y in pts})
-    assert heights == [4.5, 8.5, 12.5]
+def test_section_plot_draws_the_ducts(pt: CheckResult, tmp_path) -> None:
+    ducts = plots.tendon_ducts_at_midlength(pt)
+    assert sum(n for *_xyd, n in ducts) == 45 and len(ducts) == 3
+    # heights at midlength: the low points of the job file, 12.5, 8.5 and 4.5 in, on the axis
+    assert sorted(round(y / INCH_MM, 6) for _, y, _d, _n in ducts) == [4.5, 8.5, 12.5]
+    assert all(x == 0.0 for x, *_ in ducts)
+    assert [d for *_xy, d, _n in ducts] == [t.duct_diameter for t in pt.girder.job.tendons]
+    out = plots.plot_section(pt, tmp_path / "pt-section.svg", "US")
+    svg = out.read_text(encoding="utf-8")
+    assert "3 ducts to scale, 45 strands in all" in svg
 
 
 # ------------------------------------------------------------------------------------------
@@ -344,3 +348,16 @@ def test_markdown_report_writes_its_figures(pt: CheckResult, tmp_path: Path) -> 
     assert names == [f"pt-figure-{i}.svg" for i in range(1, 6)]
     assert all(f"]({n})" in text for n in names)
     assert "data:image" not in text
+
+
+def test_friction_of_a_tendon_jacked_at_both_ends_says_so(tmp_path: Path) -> None:
+    """A tendon jacked at both ends is not described as jacked from one (a review finding)."""
+    from tests.conftest import write_job
+
+    text = PT_EXAMPLE.read_text(encoding="utf-8").replace('jacking = "left"', 'jacking = "both"', 1)
+    result = check_file(write_job(tmp_path, text))
+    title, sections, _ = build(result, job_text=text.encode(), generated=FIXED_DATE)
+    friction = render_markdown(title, sections)
+    t1 = next(ln for ln in friction.splitlines() if ln.startswith("T1 ("))
+    assert t1.startswith("T1 (jacked at both ends; midlength taken from the ")
+    assert any(ln.startswith("T2 (jacked from the left end)") for ln in friction.splitlines())

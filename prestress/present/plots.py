@@ -109,9 +109,11 @@ def plot_section(result: CheckResult, path: str | os.PathLike[str], system: str)
     g = result.girder
     job = g.job
     title = f"{g.section_name}: strands at midlength"
+    ducts = None
     if job.post_tensioned:
-        strands = tendon_strands_at_midlength(result)
-        title = f"{g.section_name}: tendons at midlength (strands at their duct's centre)"
+        strands = []
+        ducts = tendon_ducts_at_midlength(result)
+        title = f"{g.section_name}: tendon ducts at midlength"
     elif job.layout is not None:
         strands = job.layout.all_strand_positions(job.length / 2.0)
     else:
@@ -127,27 +129,24 @@ def plot_section(result: CheckResult, path: str | os.PathLike[str], system: str)
         strands_mm=strands,
         deck=deck,
         units=system,
+        ducts_mm=ducts,
     )
     return Path(path)
 
 
-def tendon_strands_at_midlength(result: CheckResult) -> list[tuple[float, float]]:
-    """The strands of every tendon at the girder's midlength, each at its duct's centre (mm).
+def tendon_ducts_at_midlength(result: CheckResult) -> list[tuple[float, float, float, int]]:
+    """Each tendon's duct at the girder's midlength: (x, y, outside diameter, strands), mm.
 
-    The ducts lie on the girder axis at their profile heights (as the section net of the
-    open ducts assumes, :func:`prestress.sections.composite.section_at_stressing`); the
-    strands' places inside a duct are not known, so each tendon's strands are drawn at the
-    duct's centre (one point per strand, so the drawing counts them all).
+    On the girder axis at the profile height, as the section net of the open ducts assumes
+    (:func:`prestress.sections.composite.section_at_stressing`).
     """
     job = result.girder.job
     xm = job.length / 2.0
-    out: list[tuple[float, float]] = []
+    out = []
     for t in job.tendons:
         prof = t.profile()
-        if not prof.x_start_mm <= xm <= prof.x_end_mm:
-            continue
-        y = float(prof.height(xm))
-        out += [(0.0, y)] * t.strands
+        if prof.x_start_mm <= xm <= prof.x_end_mm:
+            out.append((0.0, float(prof.height(xm)), t.duct_diameter, t.strands))
     return out
 
 

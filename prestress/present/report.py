@@ -770,7 +770,13 @@ def _pt_friction(result: CheckResult, system: str) -> list[str]:
         total += t.area * loss
         lines.append(
             _Desc(
-                f"{t.name} (jacked from the {end} end): fpj = "
+                f"{t.name} ("
+                + (
+                    f"jacked at both ends; midlength taken from the {end} jack"
+                    if t.jacking == "both"
+                    else f"jacked from the {end} end"
+                )
+                + "): fpj = "
                 f"{_q(t.jacking_stress, system, 'stress')}, "
                 f"K = {_coefficient(t.K * per.factor)} per {pu}, "
                 f"x = {_q(x, system, 'position')}, μ = {t.mu:g}, α = {alpha:.4f} rad; "

@@ -160,6 +160,7 @@ def draw_section(
     strands_mm: Sequence[tuple[float, float]] | None = None,
     deck: tuple[float, float, float] | None = None,
     units: str = "US",
+    ducts_mm: Sequence[tuple[float, float, float, int]] | None = None,
 ) -> None:
     """Draw a cross-section to scale and write it as SVG or PNG (by the file suffix).
 
@@ -178,6 +179,8 @@ def draw_section(
         deck: (width, thickness, haunch) of the deck slab in mm, drawn centred above the girder,
             or None.
         units: "US" (inches) or "SI" (mm) for the dimension values.
+        ducts_mm: post-tensioning ducts (x, y, outside diameter, strand count) in mm, drawn
+            as circles to scale with their strand count beside them, or None.
 
     Raises:
         ValueError: unknown units or file suffix, or an empty polygon.
@@ -280,6 +283,20 @@ def draw_section(
         n_strands = len(xs)
         ax.scatter(xs, ys, s=9.0, c=_INK, marker="o", linewidths=0, zorder=4)
 
+    # ducts: circles to scale, the strand count beside each
+    for x, y, d, n in ducts_mm or ():
+        ax.add_patch(Circle((x, y), d / 2.0, facecolor="white", edgecolor=_INK, lw=0.8, zorder=4))
+        ax.text(
+            x + d / 2.0 + 0.01 * size,
+            y,
+            f"{n}",
+            fontsize=_FONT_PT - 1,
+            va="center",
+            ha="left",
+            color=_DIM_INK,
+            zorder=5,
+        )
+
     # centroid: circle-and-cross symbol on a dash-dot axis, labelled on the right
     if centroid_y_mm is not None:
         cx = shell.centroid.x
@@ -312,7 +329,13 @@ def draw_section(
 
     fig.text(0.5, 1.0 - 0.28 / total_h, title, ha="center", va="center", fontsize=11)
     note = f"dimensions in {_UNITS[units][0]}; drawn to scale"
-    if n_strands:
+    if ducts_mm:
+        n_tendon_strands = sum(n for *_xyd, n in ducts_mm)
+        note += (
+            f"; {len(ducts_mm)} duct{'s' if len(ducts_mm) != 1 else ''} to scale, "
+            f"{n_tendon_strands} strands in all (count beside each duct)"
+        )
+    elif n_strands:
         note += f"; {n_strands} strand{'s' if n_strands != 1 else ''} shown as dots"
     fig.text(0.02, 0.16 / total_h, note, ha="left", va="center", fontsize=_FONT_PT - 1)
 
