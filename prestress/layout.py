@@ -202,7 +202,9 @@ class Layout:
     def key_positions(self) -> list[tuple[str, float]]:
         """Named positions along the girder (mm from the left end), sorted.
 
-        Hold-down points, the ends of debonding and the ends of their transfer lengths.
+        Hold-down points, the ends of debonding and the ends of their transfer lengths, each
+        named with its side ("left hold-down", "right debond end 1 + lt"), so that every
+        station of an unsymmetric layout can be asked for by name.
         """
         out: list[tuple[str, float]] = []
         lt, L = self.transfer_length, self.length
@@ -211,13 +213,13 @@ class Layout:
         )
         for s in self.sets:
             if s.hold_downs is not None:
-                out += [("hold-down", s.hold_downs[0]), ("hold-down", s.hold_downs[1])]
+                out += [("left hold-down", s.hold_downs[0]), ("right hold-down", s.hold_downs[1])]
             for d, side in ((s.debond_left, "left"), (s.debond_right, "right")):
                 if d > 0:
                     k = lengths.index(round(d, 3)) + 1
                     x0 = d if side == "left" else L - d
                     x1 = d + lt if side == "left" else L - d - lt
-                    out += [(f"debond end {k}", x0), (f"debond end {k} + lt", x1)]
+                    out += [(f"{side} debond end {k}", x0), (f"{side} debond end {k} + lt", x1)]
         return sorted(set(out), key=lambda p: (p[1], p[0]))
 
     def all_strand_positions(self, x: float) -> list[tuple[float, float]]:

@@ -111,9 +111,11 @@ def test_stations_include_every_critical_point() -> None:
         "left end",
         "left bearing",
         "left lt",
-        "debond end 1",
-        "debond end 1 + lt",
-        "debond end 2",
+        "left debond end 1",
+        "left debond end 1 + lt",
+        "left debond end 2",
+        "right debond end 2",
+        "right debond end 1 + lt",
         "midspan",
         "0.1 span",
         "right end",
@@ -123,6 +125,9 @@ def test_stations_include_every_critical_point() -> None:
     assert xs == sorted(xs) and len(set(np.round(xs, 3))) == len(xs)
     harped = [s.name for s in stations(resolve_girder(load_job(HARPED)))]
     assert sum("hold-down" in n for n in harped) == 2
+    # each named with its side, so that either can be asked for by name (a review finding)
+    assert "left hold-down" in harped and "right hold-down" in harped
+    assert len(set(names)) == len(names)
 
 
 def test_statics_of_the_load_cases() -> None:

@@ -431,7 +431,7 @@ def plot_zone(result: CheckResult, path: str | os.PathLike[str], system: str) ->
     for z in result.zone:
         ax.plot([value(z.station.x, system, "position")] * 2, [-0.04 * H, 0.0], color=_GREY, lw=0.7)
     if job.layout is not None:
-        hd = [x for name, x in job.layout.key_positions() if name == "hold-down"]
+        hd = [x for name, x in job.layout.key_positions() if name.endswith("hold-down")]
         if hd:
             ax.plot(
                 [value(x, system, "position") for x in hd],
@@ -446,7 +446,7 @@ def plot_zone(result: CheckResult, path: str | os.PathLike[str], system: str) ->
         db = [
             (name, x)
             for name, x in job.layout.key_positions()
-            if name.startswith("debond end") and not name.endswith("lt")
+            if "debond end" in name and not name.endswith("lt")
         ]
         for k, (_name, x) in enumerate(db):
             ax.axvline(

@@ -55,10 +55,8 @@ def elevation(
             j = min(n - 1, max(0, round(x / L * (n - 1))))
             marks[j] = (
                 "▼"
-                if name == "hold-down"
-                else (
-                    "┆" if name.startswith("debond end") and not name.endswith("lt") else marks[j]
-                )
+                if name.endswith("hold-down")
+                else ("┆" if "debond end" in name and not name.endswith("lt") else marks[j])
             )
     text.append(" " + "".join(marks) + "\n", style="cyan")
     text.append("┌" + "─" * n + "┐ girder top\n", style="dim")
