@@ -1441,7 +1441,14 @@ def _governing(result: CheckResult, system: str) -> Section:
                     )
                 continue
             st, u, fr = best
-            limit = fr.compression_limit if fr.stress < 0 else fr.tension_limit
+            # the limit of the stress's sign; where none, the only one given (a compressed
+            # fiber under a tension-only limit: use 0, and the limit it is kept from)
+            same, other = (
+                (fr.compression_limit, fr.tension_limit)
+                if fr.stress < 0
+                else (fr.tension_limit, fr.compression_limit)
+            )
+            limit = same if same is not None else other
             cls = "ok" if fr.ok else "fail"
             rows.append(
                 (
@@ -1480,7 +1487,9 @@ def _governing(result: CheckResult, system: str) -> Section:
                 "Check",
             ),
             tuple(rows),
-            "The station of the highest utilisation for each stage and fiber.",
+            "The station of the highest utilisation for each stage and fiber (among equal "
+            "ones, the nearest to its limit). Use: stress / limit of the same sign; 0.00 for a "
+            "fiber in compression where only a tension limit applies (that limit is shown).",
         )
     )
     return sec
