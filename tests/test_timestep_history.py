@@ -87,3 +87,26 @@ def test_bad_input() -> None:
         history(girder, "aashto", (0.5,))
     assert info.value.field == "--at"
     assert main(["losses", str(HARPED), "--at", "28 d"]) == 2  # the job's method is refined
+
+
+def test_losses_plot_draws_the_time_step_path(tmp_path) -> None:
+    """The plot of a time-step method draws the path the analysis computes between its
+    milestones (a review found only dotted lines, with values that differed from --at)."""
+    from prestress.analysis import check_file
+    from prestress.present import plots
+    from tests.conftest import write_job
+
+    text = HARPED.read_text(encoding="utf-8").replace(
+        'method = "aashto-refined"', 'method = "time-step-aashto"'
+    )
+    result = check_file(write_job(tmp_path, text))
+    curve, legend = plots._time_step_curve(result)
+    ages = [a for a, _ in curve]
+    assert ages == sorted(ages) and ages[0] == pytest.approx(1.0) and ages[-1] == 20000.0
+    final = history(result.girder, "aashto", (20000.0,))[0]
+    # the ages asked for are steps of the analysis too, so another set moves the final
+    # value by round-off of the stepping only (0.01 % here)
+    assert curve[-1][1] == pytest.approx(final.strand_stress, rel=1e-3)
+    assert "elastic gains" in legend
+    svg = plots.plot_losses(result, tmp_path / "losses.svg", "US").read_text(encoding="utf-8")
+    assert "time-step path" in svg and "the path the analysis computes" in svg

@@ -480,6 +480,32 @@ def plot_zone(result: CheckResult, path: str | os.PathLike[str], system: str) ->
 # Strand stress with time
 
 
+def _time_step_curve(result: CheckResult) -> tuple[list[tuple[float, float]], str]:
+    """The strand stress of a time-step method along the girder's life (age d, MPa).
+
+    From :func:`prestress.losses.timestep_method.history` at ages spaced evenly on the log
+    scale from transfer to the final age, with the day before and after deck placement and
+    the superimposed loads: the path the method computes between its milestones, elastic
+    gains from later loads included (as ``prestress losses --at`` gives it).
+    """
+    import warnings
+
+    from prestress.losses.timestep_method import history
+
+    job = result.girder.job
+    t = job.times
+    ages = set(np.geomspace(t.transfer, t.final, 48).tolist())
+    ages.update(a for a in (t.deck_placement - 1e-3, t.deck_placement + 1e-3) if a > t.transfer)
+    model = result.losses.method.removeprefix("time-step-")
+    with warnings.catch_warnings():  # its caveats are the method's notes already
+        warnings.simplefilter("ignore")
+        rows = history(result.girder, model, tuple(sorted(a for a in ages if a <= t.final)))
+    return (
+        [(r.age, r.strand_stress) for r in rows],
+        "time-step path (elastic gains of later loads included)",
+    )
+
+
 def plot_losses(
     result: CheckResult,
     path: str | os.PathLike[str],
@@ -491,7 +517,8 @@ def plot_losses(
 
     The milestones of the method (stress before transfer in the bed, just after transfer,
     at deck placement where the method gives it, final) are drawn as points joined by thin
-    dotted lines: the method gives no path between them. For a pretensioned girder, jacking is
+    dotted lines: the method gives no path between them; a time-step method's own path is
+    drawn too (:func:`_time_step_curve`). For a pretensioned girder, jacking is
     drawn at the left edge, as a level line held by the bed until transfer, where elastic
     shortening drops the stress. For a post-tensioned girder, the tendons are jacked at the
     age of stressing (the job's transfer age), where friction, anchor set and elastic
@@ -513,6 +540,8 @@ def plot_losses(
     b = result.losses
     job = result.girder.job
     t = job.times
+    if timestep is None and b.method.startswith("time-step-"):
+        timestep, timestep_label = _time_step_curve(result)
     su = label(system, "stress")
     s = lambda v: value(v, system, "stress")  # noqa: E731
     ages = [m.age for m in b.milestones if m.age is not None and m.age > 0]
@@ -522,7 +551,8 @@ def plot_losses(
     t_max = max([t.final, *ages]) * 2.0
     pt = job.post_tensioned
     fig = _figure(8.0, 4.2)
-    ax = fig.add_axes((0.1, 0.18, 0.72, 0.70) if pt else (0.1, 0.14, 0.72, 0.74))
+    two_line_note = pt or bool(timestep)
+    ax = fig.add_axes((0.1, 0.18, 0.72, 0.70) if two_line_note else (0.1, 0.14, 0.72, 0.74))
     _style_axes(ax)
     ax.set_xscale("log")
     # post-tensioning: no casting bed; the tendons are jacked at the age of stressing
@@ -610,9 +640,14 @@ def plot_losses(
     fig.text(
         0.1,
         0.015,
-        f"Total loss {s(b.total):.4g} {su} "
-        f"({100 * b.total / fpj:.1f} % of fpj); dotted: the method gives no path "
-        "between its milestones"
+        f"Total loss {s(b.total):.4g} {su} ({100 * b.total / fpj:.1f} % of fpj); "
+        + (
+            "dotted: the milestones of the loss tables, without the elastic gains of later "
+            "loads\n(the stage checks apply those loads themselves); solid: the path the "
+            "analysis computes"
+            if timestep
+            else "dotted: the method gives no path between its milestones"
+        )
         + (".\nTendon stresses at midlength, the tendons' area-weighted mean." if pt else "."),
         fontsize=_FONT - 1,
         va="bottom",
