@@ -157,3 +157,25 @@ def test_a_girder_without_deck_is_not_described_with_one(tmp_path: Path, capsys)
     assert "Deck placement on the girder alone" not in out
     assert "Composite: deck transformed" not in out and "No deck: every load" in out
     assert "Other non-composite load" in out and "Deck: other non-composite load" in out
+
+
+def test_transformed_sections_show_the_force_the_stages_apply(tmp_path: Path, capsys) -> None:
+    """On transformed sections the stage tables apply Aps (fpbt − time-dependent losses): the
+    losses table says so beside fpe (AASHTO LRFD 9th Ed. 5.9.3.2.3a and C5.9.3.1, from
+    memory), so that P in the stage tables is explained."""
+    job = tmp_path / "transformed.toml"
+    job.write_text(
+        BASE.replace(
+            'method = "aashto-approximate"',
+            'method = "aashto-approximate"\nsection = "transformed"',
+        ),
+        encoding="utf-8",
+    )
+    r = run_check(load_job(job))
+    assert r.losses.applied_final > r.losses.f_pe  # no elastic shortening deducted
+    assert main(["check", str(job)]) in (0, 1)
+    out = " ".join(capsys.readouterr().out.split())
+    P = r.losses.applied_final * r.girder.job.A_ps / 4448.2216152605  # kip
+    assert "Applied to the transformed section" in out and f"P {P:,.1f} kip" in out
+    midspan = next(s for s in r.stages if s.key == "service_permanent").stations
+    assert any(abs(st.force / 4448.2216152605 - P) < 0.05 for st in midspan)

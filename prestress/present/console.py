@@ -244,6 +244,17 @@ def losses(result: CheckResult, system: str) -> Table:
         f"{100 * L.f_pe / L.jacking_stress:.1f}",
         f"force {fmt(L.f_pe * A, system, 'force', 1)} {fu}",
     )
+    if abs(L.applied_final - L.f_pe) > 1e-6 * L.jacking_stress:
+        # transformed sections: the stages apply the force before elastic shortening and
+        # gains, which the section analysis itself gives (AASHTO LRFD 5.9.3.2.3a, C5.9.3.1)
+        t.add_row(
+            "Applied to the transformed section",
+            "final",
+            fmt(L.applied_final, system, "stress", 2),
+            f"{100 * L.applied_final / L.jacking_stress:.1f}",
+            f"P {fmt(L.applied_final * A, system, 'force', 1)} {fu} in the stage tables: "
+            "elastic shortening and gains come from the section",
+        )
     return t
 
 
