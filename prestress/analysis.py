@@ -17,7 +17,7 @@ import numpy as np
 
 from prestress.errors import InputError
 from prestress.losses import LossBreakdown, compute_losses
-from prestress.model import FiberLimit, Job
+from prestress.model import FiberLimit, Job, PrestressFactors
 from prestress.sections.composite import (
     AssembledSection,
     StrandLayer,
@@ -416,9 +416,10 @@ def rank_beats(a: tuple[float, float], b: tuple[float, float] | None) -> bool:
     """
     if b is None:
         return True
-    if a[0] == b[0] or abs(a[0] - b[0]) <= 1e-9 * abs(b[0]) + 1e-12:
+    finite = math.isfinite(a[0]) and math.isfinite(b[0])
+    if a[0] == b[0] or (finite and abs(a[0] - b[0]) <= 1e-9 * abs(b[0]) + 1e-12):
         return a[1] > b[1] + 1e-9 * abs(b[1]) + 1e-9
-    return a[0] > b[0]
+    return a[0] > b[0]  # an infinite utilisation (a zero limit exceeded) beats any finite one
 
 
 @dataclass(frozen=True)
@@ -718,22 +719,36 @@ def lower_release_tension_limit(f_ci: float) -> float:
 
 
 def station_results(girder: Girder, spec, raw) -> list[StationResult]:  # type: ignore[no-untyped-def]
-    """The stresses of one stage checked against the limits, station by station."""
+    """The stresses of one stage checked against the limits, station by station.
+
+    Where the limit set gives factors on the prestress (``raw.cases``), each fiber is checked
+    with the prestress times each factor and takes the case that governs (the higher
+    :meth:`FiberResult.rank`; the lower factor on a tie). The force P stays the mean value.
+    """
     job = girder.job
     gc = job.girder_concrete
     strength = gc.fci if spec.strength == "fci" else gc.fc
     sym = "f'ci" if spec.strength == "fci" else "f'c"
     assert strength is not None
+    cases = raw.checked_cases()
     out = []
     for i, st in enumerate(raw.stations):
         fibers = {}
-        for fiber, f in raw.stresses.items():
+        for fiber in raw.stresses:
             limit = job.limits.get(spec.limit_stage, fiber)
             if fiber == "deck_top":
                 assert job.deck is not None
-                fibers[fiber] = check_fiber(float(f[i]), limit, job.deck.concrete.fc, "f'c,deck")
+                fiber_strength, fiber_sym = job.deck.concrete.fc, "f'c,deck"
             else:
-                fibers[fiber] = check_fiber(float(f[i]), limit, strength, sym)
+                fiber_strength, fiber_sym = strength, sym
+            governing: FiberResult | None = None
+            for _factor, stresses in cases:
+                fr = check_fiber(float(stresses[fiber][i]), limit, fiber_strength, fiber_sym)
+                r = fr.rank()
+                if governing is None or (r is not None and rank_beats(r, governing.rank())):
+                    governing = fr
+            assert governing is not None
+            fibers[fiber] = governing
         out.append(
             StationResult(
                 name=st.name,
@@ -747,6 +762,19 @@ def station_results(girder: Girder, spec, raw) -> list[StationResult]:  # type: 
             )
         )
     return out
+
+
+def prestress_factors_note(factors: PrestressFactors) -> str:
+    """The stage note on the factors applied to the prestress ("" for the mean alone).
+
+    E.g. "prestress × 0.95 or × 1.05, whichever governs each fiber (EN 1992-1-1:2004
+    5.10.9(1)P ...); P: the mean value P_m,t".
+    """
+    if factors.unity:
+        return ""
+    cases = " or ".join(f"× {g:g}" for g in factors.cases)
+    which = ", whichever governs each fiber" if len(factors.cases) > 1 else ""
+    return f"prestress {cases}{which}, loads unfactored ({factors.source}); P: the mean value P_m,t"
 
 
 def deck_shrinkage_left_out(girder: Girder, losses: LossBreakdown, all_stations) -> str:  # type: ignore[no-untyped-def]
@@ -924,6 +952,9 @@ def run_check(job: Job, *, cli_libraries: tuple[str, ...] = ()) -> CheckResult:
         stage_notes = []
         if raw.note:
             stage_notes.append(raw.note)
+        factors_note = prestress_factors_note(raw.factors)
+        if factors_note:
+            stage_notes.append(factors_note)
         combo = job.combinations.get(spec.key)
         if combo is not None and combo.source and spec.live > 0:
             text = f"load factors: {combo.source}"

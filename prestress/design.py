@@ -34,7 +34,10 @@ station is linear in the developed steel area Σ A·d(x) and its first moment Σ
 "strand type" (a grid row's bonded straight strands; a row's strands debonded over one
 length; one harped strand with its mid and end heights), so a batch of candidates is one
 matrix product with the per-type stress coefficients, then element-wise limits
-(candidates × stages × stations × fibers), with no Python loop over candidates.
+(candidates × stages × stations × fibers), with no Python loop over candidates. Where the
+limit set gives factors on the prestress (``prestress_factors``, EN 1992-1-1:2004 5.10.9(1)P,
+from memory), the prestress part of each stress is scaled by the stage's lower and upper
+factor and each fiber takes the case that governs, as ``prestress check`` does.
 
 Losses and the analysis sections depend on the pattern only through the strands' areas and
 heights at midlength (harping between hold-downs that straddle midlength keeps the rows'
@@ -1010,6 +1013,12 @@ class Evaluator:
         self.specs = stage_specs(g0)
         self.notes: list[str] = []
         S = len(self.specs)
+        # the limit set's factors on the prestress per stage (EN 1992-1-1:2004 5.10.9(1)P,
+        # from memory): lower and upper, both 1 for the mean prestress alone
+        factors = [job.limits.factors(spec.limit_stage, job.post_tensioned) for spec in self.specs]
+        self.factor_inf = np.array([f.cases[0] for f in factors])
+        self.factor_sup = np.array([f.cases[-1] for f in factors])
+        self.factored = any(not f.unity for f in factors)
 
         # stations: the union over the signatures, and each signature's own
         self.sig_stations: dict[int, list[Station]] = {}
@@ -1178,6 +1187,51 @@ class Evaluator:
             self.zero_c[cs, cf],
         )
 
+    @staticmethod
+    def _utilisation(
+        f: np.ndarray, it: np.ndarray, ic: np.ndarray, zt: np.ndarray, zc: np.ndarray
+    ) -> np.ndarray:
+        """Utilisation of stresses f against the columns' limits (inf: failing a zero limit)."""
+        u = np.maximum(f * it, f * ic)
+        if zt.any():
+            u = np.where(zt & (f > 0), np.inf, u)
+        if zc.any():
+            u = np.where(zc & (f < 0), np.inf, u)
+        return u
+
+    def _governing_case(
+        self, fP: np.ndarray, Fc: np.ndarray, sig: int, terms: tuple[np.ndarray, ...]
+    ) -> tuple[np.ndarray, np.ndarray]:
+        """Stresses and utilisations of the case that governs each column.
+
+        ``fP``: the stresses of the mean prestress alone (candidates × columns); each column
+        is checked with the prestress times its stage's lower and upper factor, the loads
+        unfactored, and takes the case of the higher rank, as
+        :func:`prestress.analysis.station_results` does (:meth:`FiberResult.rank` and
+        :func:`prestress.analysis.rank_beats`: the utilisation, then on a tie to round-off
+        the distance past the binding limit; the lower factor on a full tie).
+        """
+        it, ic, zt, zc = terms
+        cs, _cj, cf = self.columns[sig]
+        f_inf = fP * self.factor_inf[cs] + Fc
+        f_sup = fP * self.factor_sup[cs] + Fc
+        u_inf = self._utilisation(f_inf, it, ic, zt, zc)
+        u_sup = self._utilisation(f_sup, it, ic, zt, zc)
+        tl, cl = self.tens_limit[cs, cf], self.comp_limit[cs, cf]
+
+        def distance(f: np.ndarray) -> np.ndarray:
+            by_tension = ~np.isnan(tl) & ((f >= 0.0) | np.isnan(cl))
+            return np.where(by_tension, f - tl, np.where(~np.isnan(cl), cl - f, 0.0))
+
+        with np.errstate(invalid="ignore"):
+            finite = np.isfinite(u_sup) & np.isfinite(u_inf)
+            tie = (u_sup == u_inf) | (
+                finite & (np.abs(u_sup - u_inf) <= 1e-9 * np.abs(u_inf) + 1e-12)
+            )
+            d_inf, d_sup = distance(f_inf), distance(f_sup)
+            sup = np.where(tie, d_sup > d_inf + 1e-9 * np.abs(d_inf) + 1e-9, u_sup > u_inf)
+        return np.where(sup, f_sup, f_inf), np.where(sup, u_sup, u_inf)
+
     def evaluate(self, indices: np.ndarray | None = None, *, batch: int = BATCH) -> Evaluation:
         """Check candidates (all, or those of ``indices``) in batches of numpy operations.
 
@@ -1210,12 +1264,11 @@ class Evaluator:
                 sel = grp[b0 : b0 + batch]
                 C = enum.counts[idx[sel]][:, used].astype(np.float64)
                 f = C @ Gu
-                f += Fc
-                u = np.maximum(f * it, f * ic)
-                if zt.any():
-                    u = np.where(zt & (f > 0), np.inf, u)
-                if zc.any():
-                    u = np.where(zc & (f < 0), np.inf, u)
+                if self.factored:  # factors on the prestress: the governing case per column
+                    f, u = self._governing_case(f, Fc, sig, (it, ic, zt, zc))
+                else:
+                    f += Fc
+                    u = self._utilisation(f, it, ic, zt, zc)
                 k = u.argmax(axis=1)
                 r = rows[: len(sel)]
                 util[sel] = u[r, k]
@@ -1226,11 +1279,18 @@ class Evaluator:
         return Evaluation(util, stage, station, fiber, stress, time.perf_counter() - t0)
 
     def stresses(self, i: int) -> dict[tuple[str, float, str], float]:
-        """Every fiber stress of candidate i by (stage key, station x, fiber) (MPa)."""
+        """Every fiber stress of candidate i by (stage key, station x, fiber) (MPa).
+
+        With factors on the prestress: the stress of the case that governs each fiber.
+        """
         enum = self.enum
         li, sig = int(self.group[i]), int(enum.sig[i])
-        G, Fc, *_ = self._group_terms(li, sig)
-        f = enum.counts[i].astype(np.float64) @ G + Fc
+        G, Fc, *terms = self._group_terms(li, sig)
+        if self.factored:  # the case that governs each fiber, as the full check shows it
+            fP = (enum.counts[i].astype(np.float64) @ G)[None, :]
+            f = self._governing_case(fP, Fc[None, :], sig, tuple(terms))[0][0]
+        else:
+            f = enum.counts[i].astype(np.float64) @ G + Fc
         cs, cj, cf = self.columns[sig]
         return {
             (self.specs[s].key, float(self.x[j]), _FIBERS[fb]): float(v)

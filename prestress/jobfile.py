@@ -30,6 +30,7 @@ from prestress.model import (
     LimitSet,
     LiveLoad,
     Loads,
+    PrestressFactors,
     SectionRef,
     Strand,
     StrandRow,
@@ -269,10 +270,90 @@ def _fiber_limit(t: Table, default: FiberLimit | None = None) -> FiberLimit:
     return FiberLimit(compression_fraction=comp, tension=tens)
 
 
+#: The largest factor on the mean prestress a limit set may give (``prestress_factors``).
+PRESTRESS_FACTOR_MAX = 1.5
+
+
+def _factor_values(t: Table) -> dict[str, float | str]:
+    """The factors a ``prestress_factors`` table (or a sub-table) gives: inf, sup, note.
+
+    Checked one by one: 0 < inf ≤ 1 ≤ sup ≤ 1.5 (r_inf and r_sup of EN 1992-1-1:2004
+    5.10.9(1)P are 0.90 to 1.10 when recommended; from memory).
+    """
+    out: dict[str, float | str] = {}
+    for key in ("inf", "sup", "note"):  # known keys, for the hint on a misspelt one
+        t.raw(key, None)
+    if t.has("inf"):
+        v = t.number("inf")
+        if not 0.0 < v <= 1.0:
+            raise t.error("inf", "a factor greater than 0 and at most 1 (e.g. 0.95)", f"{v:g}")
+        out["inf"] = v
+    if t.has("sup"):
+        v = t.number("sup")
+        if not 1.0 <= v <= PRESTRESS_FACTOR_MAX:
+            raise t.error(
+                "sup", f"a factor from 1 to {PRESTRESS_FACTOR_MAX:g} (e.g. 1.05)", f"{v:g}"
+            )
+        out["sup"] = v
+    if t.has("note"):
+        out["note"] = t.string("note")
+    return out
+
+
+def read_prestress_factors(t: Table) -> dict[tuple[str, bool], PrestressFactors]:
+    """Read ``prestress_factors``: factors on the mean prestress, resolved per stage and kind.
+
+    The table gives ``inf`` and ``sup`` (default 1), an optional ``note`` (the clause), a
+    sub-table per stage of :data:`prestress.model.STAGES` overriding them, and an optional
+    ``post_tensioned`` sub-table (with its own per-stage sub-tables) used for a girder with
+    tendons. The most specific table wins, value by value: for a pretensioned girder the
+    stage's table, then the top; for a post-tensioned one ``post_tensioned.<stage>``, then
+    ``post_tensioned``, then the stage's table, then the top.
+    """
+    top = _factor_values(t)
+    per_stage: dict[str, dict[str, float | str]] = {}
+    for stage in STAGES:
+        sub = t.table(stage, required=False)
+        if sub is not None:
+            per_stage[stage] = _factor_values(sub)
+            sub.done()
+    pt_table = t.table("post_tensioned", required=False)
+    pt: dict[str, float | str] = {}
+    pt_stage: dict[str, dict[str, float | str]] = {}
+    if pt_table is not None:
+        pt = _factor_values(pt_table)
+        for stage in STAGES:
+            sub = pt_table.table(stage, required=False)
+            if sub is not None:
+                pt_stage[stage] = _factor_values(sub)
+                sub.done()
+        pt_table.done()
+    t.done()
+    out: dict[tuple[str, bool], PrestressFactors] = {}
+    for stage in STAGES:
+        for post_tensioned in (False, True):
+            chain = [top, per_stage.get(stage, {})]
+            if post_tensioned:
+                chain += [pt, pt_stage.get(stage, {})]
+            merged: dict[str, float | str] = {}
+            for values in chain:
+                merged.update(values)
+            inf, sup = float(merged.get("inf", 1.0)), float(merged.get("sup", 1.0))
+            source = str(merged.get("note", "")) or "prestress_factors of the limit set"
+            out[(stage, post_tensioned)] = PrestressFactors(inf, sup, source)
+    return out
+
+
 def read_limits(t: Table) -> LimitSet:
-    """Read a limit set: per stage, compression fraction and tension coefficient per fiber."""
+    """Read a limit set: per stage, compression fraction and tension coefficient per fiber.
+
+    Optionally ``prestress_factors`` (:func:`read_prestress_factors`): the factors on the
+    mean prestress of every stress check.
+    """
     name = t.string("name", "limits of the job")
     source = t.string("source", "supplied by the user")
+    factors_table = t.table("prestress_factors", required=False)
+    factors = read_prestress_factors(factors_table) if factors_table is not None else {}
     stages: dict[str, dict[str, FiberLimit]] = {}
     for stage in STAGES:
         st = t.table(stage, required=False)
@@ -295,7 +376,7 @@ def read_limits(t: Table) -> LimitSet:
         raise InputError(
             "limits for at least one of the stages " + ", ".join(STAGES), file=t.file, field=t.path
         )
-    return LimitSet(name=name, source=source, stages=stages)
+    return LimitSet(name=name, source=source, stages=stages, prestress_factors=factors)
 
 
 def _section(g: Table) -> SectionRef:

@@ -337,16 +337,66 @@ STAGES = (
 
 
 @dataclass(frozen=True)
+class PrestressFactors:
+    """Factors on the mean prestress force for the stress checks of a stage.
+
+    The fiber stresses are computed with the prestress force (and its moment) times ``inf``
+    and times ``sup``, the loads unfactored, and each fiber takes the case that governs:
+    the characteristic values P_k,inf = r_inf P_m,t and P_k,sup = r_sup P_m,t of
+    EN 1992-1-1:2004 5.10.9(1)P (from memory). Both 1: the mean force alone (AASHTO).
+
+    Attributes:
+        inf: the lower factor r_inf (0 < inf ≤ 1).
+        sup: the upper factor r_sup (1 ≤ sup ≤ 1.5).
+        source: where the factors come from (the limit set's note), "" when none is given.
+    """
+
+    inf: float = 1.0
+    sup: float = 1.0
+    source: str = ""
+
+    @property
+    def unity(self) -> bool:
+        """Whether both factors are 1 (the mean prestress alone)."""
+        return self.inf == 1.0 and self.sup == 1.0
+
+    @property
+    def cases(self) -> tuple[float, ...]:
+        """The factors to check, lower first: (1.0,) when both are 1, (inf,) when equal."""
+        if self.unity:
+            return (1.0,)
+        return (self.inf,) if self.inf == self.sup else (self.inf, self.sup)
+
+
+#: The mean prestress alone (a limit set without ``prestress_factors``).
+MEAN_PRESTRESS = PrestressFactors()
+
+
+@dataclass(frozen=True)
 class LimitSet:
-    """Stress limits as data: for each stage name, for each fiber, a FiberLimit."""
+    """Stress limits as data: for each stage name, for each fiber, a FiberLimit.
+
+    Attributes:
+        name: the set's name.
+        source: the documents it mirrors.
+        stages: for each stage key, for each fiber, its limits.
+        prestress_factors: factors on the mean prestress by (stage key, post-tensioned?),
+            already resolved for every stage of :data:`STAGES` and both kinds of girder;
+            empty when the set gives none (the mean prestress alone).
+    """
 
     name: str
     source: str
     stages: dict[str, dict[str, FiberLimit]]
+    prestress_factors: dict[tuple[str, bool], PrestressFactors] = field(default_factory=dict)
 
     def get(self, stage: str, fiber: str) -> FiberLimit | None:
         """The limits of a fiber in a stage, or None when none is given."""
         return self.stages.get(stage, {}).get(fiber)
+
+    def factors(self, stage: str, post_tensioned: bool = False) -> PrestressFactors:
+        """The factors on the mean prestress in a stage (its limits' key, e.g. "handling")."""
+        return self.prestress_factors.get((stage, post_tensioned), MEAN_PRESTRESS)
 
 
 @dataclass(frozen=True)

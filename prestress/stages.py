@@ -11,12 +11,13 @@ below the centroid; sagging moments positive.
 from __future__ import annotations
 
 from dataclasses import dataclass
+from itertools import product
 from typing import TYPE_CHECKING
 
 import numpy as np
 
 from prestress import actions
-from prestress.model import FIBERS, Job
+from prestress.model import FIBERS, MEAN_PRESTRESS, Job, PrestressFactors
 
 if TYPE_CHECKING:
     from prestress.analysis import Girder
@@ -374,16 +375,31 @@ class StageStresses:
     cgs: np.ndarray  # mm above the girder bottom
     eccentricity: np.ndarray  # mm below the centroid of the girder section used
     moments: dict[str, np.ndarray]
-    stresses: dict[str, np.ndarray]  # by fiber
+    stresses: dict[str, np.ndarray]  # by fiber, with the mean prestress
     section: AssembledSection  # the girder-alone section carrying the prestress
     composite: AssembledSection | None
     note: str | None
+    factors: PrestressFactors = MEAN_PRESTRESS  # on the prestress in the checks
+    # (factor, stresses by fiber with the prestress × factor) for each factor of a limit set
+    # that gives them (lower first); () when the mean prestress alone is checked
+    cases: tuple[tuple[float, dict[str, np.ndarray]], ...] = ()
+
+    def checked_cases(self) -> tuple[tuple[float, dict[str, np.ndarray]], ...]:
+        """(factor on the prestress, stresses by fiber) of every case the checks consider."""
+        return self.cases or ((1.0, self.stresses),)
 
 
 def stage_stresses(
     girder: Girder, losses: LossBreakdown, spec: StageSpec, all_stations: list[Station]
 ) -> StageStresses:
-    """Fiber stresses of one stage at its stations (vectorised over the stations)."""
+    """Fiber stresses of one stage at its stations (vectorised over the stations).
+
+    ``stresses`` are those of the mean prestress. Where the job's limit set gives factors on
+    the prestress for the stage (:meth:`prestress.model.LimitSet.factors`), ``cases`` holds
+    the stresses with the prestress force and its moment times each factor, the loads
+    unfactored (P_k,inf and P_k,sup of EN 1992-1-1:2004 5.10.9(1)P, from memory).
+    """
+    job = girder.job
     sts = span_stations(girder, all_stations) if spec.support == "bearings" else list(all_stations)
     x = np.array([s.x for s in sts])
     sec = girder.section_transfer if spec.prestress == "transfer" else girder.section_service
@@ -394,21 +410,31 @@ def stage_stresses(
     ms = moments(girder, spec, x)
     M_nc = sum((m for k, m in ms.items() if k not in COMPOSITE_LOADS), np.zeros_like(x))
     M_c = sum((m for k, m in ms.items() if k in COMPOSITE_LOADS), np.zeros_like(x))
-    stresses: dict[str, np.ndarray] = {}
     composite_stage = any(k in COMPOSITE_LOADS for k in spec.loads)
     shrink = deck_shrinkage_stresses(girder) if "deck_shrinkage" in spec.loads else {}
-    for fiber in FIBERS:
-        if fiber == "deck_top":
-            if comp is None or not composite_stage:
+
+    def stresses_for(P_acting: np.ndarray) -> dict[str, np.ndarray]:
+        stresses: dict[str, np.ndarray] = {}
+        for fiber in FIBERS:
+            if fiber == "deck_top":
+                if comp is None or not composite_stage:
+                    continue
+                f_deck = comp.n_fiber[fiber] * (-M_c * comp.c(fiber) / comp.I)
+                stresses[fiber] = f_deck + shrink.get(fiber, 0.0)
                 continue
-            f_deck = comp.n_fiber[fiber] * (-M_c * comp.c(fiber) / comp.I)
-            stresses[fiber] = f_deck + shrink.get(fiber, 0.0)
-            continue
-        f = sec.n_fiber[fiber] * (-P / sec.area - (M_nc - P * e) * sec.c(fiber) / sec.I)
-        carrier = comp if comp is not None else sec
-        f = f + carrier.n_fiber[fiber] * (-M_c * carrier.c(fiber) / carrier.I)
-        stresses[fiber] = f + shrink.get(fiber, 0.0)
-    return StageStresses(spec, sts, x, P, cgs, e, ms, stresses, sec, comp, note)
+            f = sec.n_fiber[fiber] * (
+                -P_acting / sec.area - (M_nc - P_acting * e) * sec.c(fiber) / sec.I
+            )
+            carrier = comp if comp is not None else sec
+            f = f + carrier.n_fiber[fiber] * (-M_c * carrier.c(fiber) / carrier.I)
+            stresses[fiber] = f + shrink.get(fiber, 0.0)
+        return stresses
+
+    factors = job.limits.factors(spec.limit_stage, job.post_tensioned)
+    cases = () if factors.unity else tuple((g, stresses_for(g * P)) for g in factors.cases)
+    return StageStresses(
+        spec, sts, x, P, cgs, e, ms, stresses_for(P), sec, comp, note, factors, cases
+    )
 
 
 def deck_shrinkage_stresses(girder: Girder) -> dict[str, float]:
@@ -584,19 +610,20 @@ def zone_bounds(
 
     Each girder fiber's stress is linear in the eccentricity e for the stage's force P:
     f(e) = f(e0) + n P c / I (e − e0). The limits comp ≤ f ≤ tens bound e, hence the cgs
-    height y = yb − e. Returns (low, high, who sets low, who sets high) per station, with
-    ±inf where unbounded.
+    height y = yb − e. With factors on the prestress (``r.cases``) the force of each case is
+    the factor times P, and the band is the intersection of the cases' bands. Returns (low,
+    high, who sets low, who sets high) per station, with ±inf where unbounded.
     """
     sec = r.section
     out = []
     for i in range(len(r.x)):
         lo, hi, who_lo, who_hi = -np.inf, np.inf, "", ""
-        P = r.force[i]
-        for fiber, (comp, tens) in limits.items():
-            if fiber not in r.stresses or fiber == "deck_top":
+        for (g, stresses), (fiber, (comp, tens)) in product(r.checked_cases(), limits.items()):
+            if fiber not in stresses or fiber == "deck_top":
                 continue
+            P = g * r.force[i]
             k = sec.n_fiber[fiber] * P * sec.c(fiber) / sec.I  # ∂f/∂e
-            f0 = r.stresses[fiber][i]
+            f0 = stresses[fiber][i]
             e0 = r.eccentricity[i]
             if abs(k) < 1e-15:
                 continue
@@ -618,6 +645,8 @@ def zone_bounds(
                     f"{short} {fiber.replace('girder_', '')} "
                     f"{'compression' if is_comp else 'tension'}"
                 )
+                if g != 1.0:  # a case of the limit set's factors on the prestress
+                    tag += f" (P × {g:g})"
                 if upper_bound_on_e:  # e ≤ e_lim  ⇔  y ≥ y_lim
                     if y_lim > lo:
                         lo, who_lo = y_lim, tag

@@ -52,3 +52,13 @@ def test_finite_utilisations_still_rank_first() -> None:
     stage = _stage({"a": 2.0, "b": -20.0, "c": 3.0}, AASHTO_LIKE)
     station, use, _ = stage.governing_at("girder_bottom")
     assert station.name == "b" and abs(use - 20.0 / 22.5) < 1e-12
+
+
+def test_an_exceeded_zero_limit_outranks_any_finite_utilisation() -> None:
+    """A tension past a zero limit (infinite use) governs over a finite use, whatever the
+    distances (rank_beats compared them as a tie)."""
+    from prestress.analysis import rank_beats
+
+    assert rank_beats((float("inf"), 0.01), (0.99, 50.0))
+    assert not rank_beats((0.99, 50.0), (float("inf"), 0.01))
+    assert rank_beats((float("inf"), 2.0), (float("inf"), 1.0))
