@@ -517,3 +517,17 @@ def test_design_with_factors_agrees_with_run_check(tmp_path: Path) -> None:
     # the factors matter here: a pattern that passes with P_m,t fails with 1.05 P_m,0 at release
     ok0, ok1 = ev0.evaluate().ok, evaluation.ok
     assert (ok0 & ~ok1).any() and not (ok1 & ~ok0).any()
+
+
+def test_stress_plot_says_its_curves_are_the_mean(tmp_path: Path) -> None:
+    """The plotted curves are the mean prestress; with factors the plot says the check
+    takes the factored cases (the stage tables), without them it says nothing of it."""
+    from prestress.analysis import check_file
+    from prestress.present import plots
+
+    factored = check_file(write_rect(tmp_path, name="factored.toml"))
+    svg = plots.plot_stresses(factored, tmp_path / "f.svg", "SI").read_text(encoding="utf-8")
+    assert "Curves with the mean prestress" in svg
+    mean = check_file(write_rect(tmp_path, factors="", name="mean.toml"))
+    svg = plots.plot_stresses(mean, tmp_path / "m.svg", "SI").read_text(encoding="utf-8")
+    assert "Curves with the mean prestress" not in svg

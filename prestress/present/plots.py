@@ -324,10 +324,21 @@ def plot_stresses(result: CheckResult, path: str | os.PathLike[str], system: str
         frameon=False,
         handlelength=2.4,
     )
+    job = result.girder.job
+    factored = any(
+        not job.limits.factors(s.limits_key or s.key, job.post_tensioned).unity
+        for s in result.stages
+    )
     fig.text(
         0.01,
         0.12 / height,
-        f"Fiber stresses in {su}, {SIGN_CONVENTION}. Limits: C compression, T tension.",
+        f"Fiber stresses in {su}, {SIGN_CONVENTION}. Limits: C compression, T tension."
+        + (
+            " Curves with the mean prestress; the check takes the prestress × the limit "
+            "set's factors (the stage tables)."
+            if factored
+            else ""
+        ),
         fontsize=_FONT - 1,
         va="bottom",
     )
