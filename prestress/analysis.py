@@ -28,7 +28,7 @@ from prestress.sections.composite import (
 )
 from prestress.sections.properties import GrossProperties, ResolvedSection
 from prestress.stages import LoadEffects, ZoneStation, fiber_stress  # noqa: F401  (re-exported)
-from prestress.units import KSI_MPA, in_both
+from prestress.units import KSI_MPA, in_both, show_dimension
 
 SIGN_CONVENTION = "tension +, compression −"
 
@@ -106,7 +106,8 @@ def resolve_girder(job: Job, *, cli_libraries: tuple[str, ...] = ()) -> Girder:
         )
         name, source, family = entry.name, entry.source, entry.family
     _check_strands_inside(job, resolved)
-    if job.layout is not None:  # harped strands: their whole path inside the concrete
+    if job.layout is not None and any(s.y_end is not None for s in job.layout.sets):
+        # harped strands: their whole path inside the concrete (shapely only for them)
         from prestress.layout import check_harp_paths
 
         check_harp_paths(
@@ -344,7 +345,7 @@ def _check_strands_inside(job: Job, outline: ResolvedSection) -> None:
                     "a tendon profile inside the concrete with the duct's radius of cover",
                     file=job.file,
                     field=f"tendons[{i}].points",
-                    got=f"a point at y = {y / 25.4:.2f} in on the girder axis",
+                    got=f"a point at y = {show_dimension(y, job.units)} on the girder axis",
                 )
     for i, row in enumerate(job.rows):
         points = [(float(x), row.height) for x in row.x_positions()]
@@ -357,8 +358,8 @@ def _check_strands_inside(job: Job, outline: ResolvedSection) -> None:
                     "the section at that height)",
                     file=job.file,
                     field=f"strands.rows[{i}]",
-                    got=f"a strand at x = {x / 25.4:.2f} in, y = {y / 25.4:.2f} in "
-                    "outside the section",
+                    got=f"a strand at x = {show_dimension(x, job.units)}, "
+                    f"y = {show_dimension(y, job.units)} outside the section",
                 )
 
 

@@ -10,9 +10,13 @@ import argparse
 import sys
 from collections.abc import Sequence
 from pathlib import Path
+from typing import TYPE_CHECKING
 
 from prestress import __version__
 from prestress.errors import InputError
+
+if TYPE_CHECKING:
+    from prestress.analysis import CheckResult
 
 EXIT_OK, EXIT_FAIL, EXIT_INPUT, EXIT_INTERNAL = 0, 1, 2, 3
 
@@ -238,6 +242,8 @@ def cmd_check(args: argparse.Namespace) -> int:
 
     result = check_file(args.job, cli_libraries=tuple(args.library))
     system = args.units or result.girder.job.units
+    # the console's filters are checked before anything is written: exit 2 writes nothing
+    stages, stations = _console_filters(args, result)
     if args.json is not None:
         from prestress.present.jsonout import to_json
 
@@ -254,39 +260,48 @@ def cmd_check(args: argparse.Namespace) -> int:
         if args.json != "-":
             print(f"wrote {len(written)} CSV files to {args.csv}", file=sys.stderr)
     if args.json != "-":
-        from prestress.model import STAGES
         from prestress.present.console import make_console, render
 
-        stages = None
-        if args.stage:
-            stages = tuple(k.strip() for k in args.stage.split(",") if k.strip())
-            bad = [
-                k
-                for k in stages
-                if k not in STAGES
-                and not (k.startswith("handling_") and k.removeprefix("handling_").isdigit())
-            ]
-            if bad:
-                raise InputError(
-                    "stage keys among " + ", ".join(STAGES) + " (or handling_1, handling_2, …)",
-                    file="command line",
-                    field="--stage",
-                    got=repr(bad[0]),
-                )
-        stations = None
-        if args.stations:
-            stations = tuple(w.strip() for w in args.stations.split(",") if w.strip())
-            names = list(dict.fromkeys(st.name for sr in result.stages for st in sr.stations))
-            for word in stations:
-                if not any(word.lower() in n.lower() for n in names):
-                    raise InputError(
-                        "words found in the job's station names: " + ", ".join(names),
-                        file="command line",
-                        field="--stations",
-                        got=repr(word),
-                    )
         render(result, make_console(), system, stages=stages, stations=stations)
     return EXIT_OK if result.ok else EXIT_FAIL
+
+
+def _console_filters(
+    args: argparse.Namespace, result: CheckResult
+) -> tuple[tuple[str, ...] | None, tuple[str, ...] | None]:
+    """The --stage keys and --stations words of ``check``, each checked against the job."""
+    from prestress.model import STAGES
+    from prestress.present.common import station_matches
+
+    stages = None
+    if args.stage:
+        stages = tuple(k.strip() for k in args.stage.split(",") if k.strip())
+        bad = [
+            k
+            for k in stages
+            if k not in STAGES
+            and not (k.startswith("handling_") and k.removeprefix("handling_").isdigit())
+        ]
+        if bad:
+            raise InputError(
+                "stage keys among " + ", ".join(STAGES) + " (or handling_1, handling_2, …)",
+                file="command line",
+                field="--stage",
+                got=repr(bad[0]),
+            )
+    stations = None
+    if args.stations:
+        stations = tuple(w.strip() for w in args.stations.split(",") if w.strip())
+        names = list(dict.fromkeys(st.name for sr in result.stages for st in sr.stations))
+        for word in stations:
+            if not any(station_matches(n, (word,)) for n in names):
+                raise InputError(
+                    "words found in the job's station names: " + ", ".join(names),
+                    file="command line",
+                    field="--stations",
+                    got=repr(word),
+                )
+    return stages, stations
 
 
 def cmd_report(args: argparse.Namespace) -> int:

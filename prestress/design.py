@@ -906,7 +906,7 @@ def job_with_rows(job: Job, rows: tuple[StrandRow, ...] | list[StrandRow]) -> Jo
 
     rules = dict(job.layout.rules) if job.layout is not None else {}
     rows = [replace(r, index=k) for k, r in enumerate(rows)]
-    layout = build_layout(rows, job.strand.area, job.length, job.transfer_length, rules)
+    layout = build_layout(rows, job.strand.area, job.length, job.transfer_length, rules, job.units)
     return replace(job, rows=tuple(rows), layout=layout)
 
 

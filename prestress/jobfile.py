@@ -39,7 +39,18 @@ from prestress.model import (
     Times,
 )
 from prestress.tomlread import Table, read_toml
-from prestress.units import FOOT_MM, INCH_MM, KIP_N, KSI_MPA, LBF_N, in_both, to_internal
+from prestress.units import (
+    FOOT_MM,
+    INCH_MM,
+    KIP_N,
+    KSI_MPA,
+    LBF_N,
+    in_both,
+    show_dimension,
+    show_position,
+    show_stress,
+    to_internal,
+)
 
 #: The units of the job being read ("US" or "SI"), so messages quote values in the user's own
 #: units first; set by :func:`load_job`.
@@ -48,12 +59,17 @@ _JOB_UNITS: ContextVar[str] = ContextVar("job_units", default="US")
 
 def _long(mm: float) -> str:
     """A girder length or position in the job's units: "52.49 ft" or "16.00 m"."""
-    return f"{mm / 1000:.2f} m" if _JOB_UNITS.get() == "SI" else f"{mm / FOOT_MM:.2f} ft"
+    return show_position(mm, _JOB_UNITS.get())
 
 
 def _short(mm: float) -> str:
     """A dimension in the job's units: "1.97 in" or "50 mm"."""
-    return f"{mm:.0f} mm" if _JOB_UNITS.get() == "SI" else f"{mm / INCH_MM:.2f} in"
+    return show_dimension(mm, _JOB_UNITS.get())
+
+
+def _stress(mpa: float, spec: str = ".4g") -> str:
+    """A stress in the job's units: "7.98 ksi" or "55 MPa"."""
+    return show_stress(mpa, _JOB_UNITS.get(), spec)
 
 
 def _weight(w: float, decimals: int = 1) -> str:
@@ -80,7 +96,7 @@ def _concrete(t: Table, name: str, *, at_transfer: bool) -> Concrete:
             "fc",
             f"a concrete strength from {lo / KSI_MPA:.1f} to {hi / KSI_MPA:.0f} ksi "
             f"({lo:.0f} to {hi:.0f} MPa)",
-            f"{fc / KSI_MPA:.3g} ksi",
+            _stress(fc, ".3g"),
         )
     fci = None
     if at_transfer:
@@ -90,13 +106,13 @@ def _concrete(t: Table, name: str, *, at_transfer: bool) -> Concrete:
                 "fci",
                 f"a concrete strength from {lo / KSI_MPA:.1f} to {hi / KSI_MPA:.0f} ksi "
                 f"({lo:.0f} to {hi:.0f} MPa)",
-                f"{fci / KSI_MPA:.3g} ksi",
+                _stress(fci, ".3g"),
             )
         if fci > fc:
             raise t.error(
                 "fci",
-                f"f'ci no greater than f'c ({fc / KSI_MPA:.3g} ksi)",
-                f"{fci / KSI_MPA:.3g} ksi",
+                f"f'ci no greater than f'c ({_stress(fc, '.3g')})",
+                _stress(fci, ".3g"),
             )
     w = t.quantity("unit_weight", "unit_weight", positive=True)
     w_mod_given = t.has("modulus_unit_weight")
@@ -154,14 +170,14 @@ def _concrete(t: Table, name: str, *, at_transfer: bool) -> Concrete:
             raise t.error(
                 "modulus",
                 "a concrete modulus from 725 to 11,600 ksi (5 to 80 GPa)",
-                f"{Ec / KSI_MPA:.4g} ksi",
+                _stress(Ec, ".4g"),
             )
         Eci = t.quantity("modulus_at_transfer", "stress", positive=True) if at_transfer else None
         if Eci is not None and not 5_000.0 <= Eci <= 80_000.0:
             raise t.error(
                 "modulus_at_transfer",
                 "a concrete modulus from 725 to 11,600 ksi (5 to 80 GPa)",
-                f"{Eci / KSI_MPA:.4g} ksi",
+                _stress(Eci, ".4g"),
             )
     t.done()
     return Concrete(
@@ -197,24 +213,24 @@ def _strand(t: Table) -> Strand:
         raise t.error(
             "area",
             "the area of one strand, from 0.015 to 1.1 in² (10 to 700 mm²)",
-            f"{area / 645.16:.4g} in²",
+            f"{area:.4g} mm²" if _JOB_UNITS.get() == "SI" else f"{area / 645.16:.4g} in²",
         )
     fpu = t.quantity("fpu", "stress", positive=True)
     if not 1_000.0 <= fpu <= 2_500.0:
         raise t.error(
             "fpu",
             "a strand tensile strength from 145 to 363 ksi (1000 to 2500 MPa)",
-            f"{fpu / KSI_MPA:.4g} ksi",
+            _stress(fpu, ".4g"),
         )
     fpy = t.quantity("fpy", "stress", positive=True)
     if fpy >= fpu:
-        raise t.error("fpy", "fpy less than fpu", f"{fpy / KSI_MPA:.4g} ksi")
+        raise t.error("fpy", "fpy less than fpu", _stress(fpy, ".4g"))
     Ep = t.quantity("modulus", "stress", positive=True)
     if not 150_000.0 <= Ep <= 220_000.0:
         raise t.error(
             "modulus",
             "a strand modulus from 21,750 to 31,900 ksi (150 to 220 GPa)",
-            f"{Ep / KSI_MPA:.4g} ksi",
+            _stress(Ep, ".4g"),
         )
     relax = t.string("relaxation", "low", choices=("low", "stress-relieved"))
     fpj = t.quantity("jacking_stress", "stress", positive=True)
@@ -222,9 +238,9 @@ def _strand(t: Table) -> Strand:
     if fpj > limit * fpu * (1 + 1e-9):
         raise t.error(
             "jacking_stress",
-            f"at most {limit:.2f} fpu = {limit * fpu / KSI_MPA:.1f} ksi "
+            f"at most {limit:.2f} fpu = {_stress(limit * fpu, '.4g')} "
             "(AASHTO LRFD Table 5.9.2.2-1, pretensioning)",
-            f"{fpj / KSI_MPA:.4g} ksi",
+            _stress(fpj, ".4g"),
         )
     fpbt = t.quantity("stress_before_transfer", "stress", fpj, positive=True)
     if fpbt > fpj:
@@ -308,7 +324,8 @@ def read_prestress_factors(t: Table) -> dict[tuple[str, bool], PrestressFactors]
     ``post_tensioned`` sub-table (with its own per-stage sub-tables) used for a girder with
     tendons. The most specific table wins, value by value: for a pretensioned girder the
     stage's table, then the top; for a post-tensioned one ``post_tensioned.<stage>``, then
-    ``post_tensioned``, then the stage's table, then the top.
+    the stage's table, then ``post_tensioned``, then the top (a stage's table, e.g. a
+    National Annex's values at transfer, applies to both kinds of girder).
     """
     top = _factor_values(t)
     per_stage: dict[str, dict[str, float | str]] = {}
@@ -332,9 +349,11 @@ def read_prestress_factors(t: Table) -> dict[tuple[str, bool], PrestressFactors]
     out: dict[tuple[str, bool], PrestressFactors] = {}
     for stage in STAGES:
         for post_tensioned in (False, True):
-            chain = [top, per_stage.get(stage, {})]
-            if post_tensioned:
-                chain += [pt, pt_stage.get(stage, {})]
+            chain = (
+                [top, pt, per_stage.get(stage, {}), pt_stage.get(stage, {})]
+                if post_tensioned
+                else [top, per_stage.get(stage, {})]
+            )
             merged: dict[str, float | str] = {}
             for values in chain:
                 merged.update(values)
@@ -621,7 +640,7 @@ def _tendons(top: Table, strand: Strand, length: float) -> list[Tendon]:
                 "jacking_stress",
                 "at most 0.90 fpy (AASHTO LRFD Table 5.9.2.2-1, "
                 "post-tensioning prior to seating; from memory)",
-                f"{fpj / KSI_MPA:.4g} ksi",
+                _stress(fpj, ".4g"),
             )
         tendon = Tendon(
             name=name,
@@ -853,12 +872,20 @@ def _grid_rows(g: Table, first_index: int) -> list[StrandRow]:
 
 
 def build_layout(
-    rows: list[StrandRow], area: float, length: float, lt: float, rules: dict[str, float]
+    rows: list[StrandRow],
+    area: float,
+    length: float,
+    lt: float,
+    rules: dict[str, float],
+    units: str = "US",
 ) -> Layout:
-    """The strand sets of the rows: bonded, debonded groups and harped rows."""
+    """The strand sets of the rows: bonded, debonded groups and harped rows.
+
+    ``units``: the job's units ("US" or "SI"), those of the sets' labels.
+    """
     sets = []
     for i, row in enumerate(rows):
-        label = f"row {i + 1} at {_short(row.height)}"
+        label = f"row {i + 1} at {show_dimension(row.height, units)}"
         deb = {k for idx, _l, _r in row.debond for k in idx}
         bonded = tuple(x for k, x in enumerate(row.x) if k not in deb)
         if row.harp is not None:
@@ -883,7 +910,7 @@ def build_layout(
         for idx, left, right in row.debond:
             sets.append(
                 StrandSet(
-                    f"{label}, debonded {_long(left)}",
+                    f"{label}, debonded {show_position(left, units)}",
                     i,
                     tuple(row.x[k] for k in idx),
                     area,
@@ -1060,7 +1087,7 @@ def _read_job(path: Path, top: Table) -> Job:
             det.raw("max_terminations_count", None)
         det.done()
     st.done()
-    layout = build_layout(rows, strand.area, length, lt, rules) if rows else None
+    layout = build_layout(rows, strand.area, length, lt, rules, units) if rows else None
 
     ld = top.table("loads", required=False)
     if ld is None:

@@ -25,6 +25,7 @@ import numpy as np
 from numpy.typing import ArrayLike, NDArray
 
 from prestress.errors import InputError
+from prestress.units import show_dimension
 
 if TYPE_CHECKING:
     from collections.abc import Sequence
@@ -409,11 +410,6 @@ def paths_to_column_inside(
     return paths_inside(polygon, hulls, radius)
 
 
-def _show(v: float, system: str) -> str:
-    """A length across or up the section for messages: in (US) or mm (SI)."""
-    return f"{v:.0f} mm" if system == "SI" else f"{v / 25.4:.2f} in"
-
-
 def _first_exit(
     polygon: Any, start: tuple[float, float], end: tuple[float, float], radius: float
 ) -> tuple[float, float] | None:
@@ -470,22 +466,22 @@ def harp_path_error(
             reach = max(abs(a[0]) for (a, _b), good in zip(paths, ok, strict=True) if good)
             allowed = (
                 f"at most {n_ok} of this row's {len(paths)} positions "
-                f"(|x| ≤ {_show(reach, system)})"
+                f"(|x| ≤ {show_dimension(reach, system)})"
             )
         else:
             allowed = f"none of this row's {len(paths)} positions"
         bad = np.flatnonzero(~ok)
         (a, b) = paths[int(bad[0])]
         exit_at = _first_exit(polygon, a, b, radius)
-        near = f", leaving it near y = {_show(exit_at[1], system)}" if exit_at else ""
+        near = f", leaving it near y = {show_dimension(exit_at[1], system)}" if exit_at else ""
         return InputError(
             f"harped strands within the web: {allowed} keep their straight path from the "
             f"hold-down to the end column on the girder axis {PATH_RULE}",
             file=file,
             field=f"strands.rows[{row}].harp",
             got=f"{len(bad)} harped strand(s) whose path leaves the concrete, the first from "
-            f"x = {_show(a[0], system)}, y = {_show(a[1], system)} to x = "
-            f"{_show(b[0], system)}, y = {_show(b[1], system)}{near}",
+            f"x = {show_dimension(a[0], system)}, y = {show_dimension(a[1], system)} to x = "
+            f"{show_dimension(b[0], system)}, y = {show_dimension(b[1], system)}{near}",
         )
     return None
 

@@ -453,6 +453,21 @@ def from_internal(value: float, system: str, role: str) -> float:
     return value / SYSTEMS[system][role].factor
 
 
+def show_dimension(mm: float, system: str) -> str:
+    """A section dimension for messages in a system's units: "1.97 in" or "50 mm"."""
+    return f"{mm:.0f} mm" if system == "SI" else f"{mm / INCH_MM:.2f} in"
+
+
+def show_position(mm: float, system: str) -> str:
+    """A length along the girder for messages: "52.49 ft" or "16.00 m"."""
+    return f"{mm / 1000:.2f} m" if system == "SI" else f"{mm / FOOT_MM:.2f} ft"
+
+
+def show_stress(mpa: float, system: str, spec: str = ".4g") -> str:
+    """A stress for messages: "7.98 ksi" or "55 MPa" (``spec``: the number's format)."""
+    return f"{mpa:{spec}} MPa" if system == "SI" else f"{mpa / KSI_MPA:{spec}} ksi"
+
+
 def in_both(system: str, us: str, si: str) -> str:
     """A value written in both systems, the job's own first: "12.7 ft (3.88 m)" or the reverse.
 

@@ -259,3 +259,13 @@ def test_stations_filter_that_matches_nothing_is_an_error(capsys) -> None:
     assert len(err.strip().splitlines()) == 1
     assert main(["check", str(US_EXAMPLE), "--stations", "mid"]) == 0
     assert "midspan" in capsys.readouterr().out
+
+
+def test_a_bad_console_filter_writes_nothing(tmp_path, capsys) -> None:
+    """Exit 2 (bad input) writes no output: the filters are checked before the JSON file."""
+    out = tmp_path / "out.json"
+    assert main(["check", str(US_EXAMPLE), "--json", str(out), "--stations", "0.5 span"]) == 2
+    assert not out.exists()
+    assert main(["check", str(US_EXAMPLE), "--json", str(out), "--stage", "final"]) == 2
+    assert not out.exists()
+    capsys.readouterr()

@@ -225,9 +225,9 @@ def test_shipped_harped_example_keeps_its_harped_paths_inside() -> None:
     assert harp_path_error(job.layout, g.polygon, job.strand.diameter / 2.0) is None
 
 
-def test_shipped_harped_example_check_is_unchanged() -> None:
-    # the stresses depend on the strands' heights only; the example still passes its check
-    # (exit 0) as long as the path check is not wired into prestress check
+def test_shipped_harped_example_passes_with_the_path_check() -> None:
+    # its harped strands (x = ±1 in, within the web) pass the path check, and the girder
+    # its stress checks (exit 0)
     job = load_job(HARPED)
     assert run_check(job).ok
 

@@ -20,6 +20,8 @@ from prestress.present.common import fmt
         (158.9e6, "158.9×10⁶"),
         (12.34e9, "12.34×10⁹"),
         (999.96e6, "1.000×10⁹"),  # rounds up into the next power
+        (9.99996e9, "10.00×10⁹"),  # rounds up into the next decade: still four figures
+        (99.9996e9, "100.0×10⁹"),
     ],
 )
 def test_engineering_notation_keeps_four_figures(mm3: float, text: str) -> None:

@@ -244,7 +244,10 @@ def test_per_stage_and_post_tensioned_tables_resolve() -> None:
     assert (ls.factors("transfer").inf, ls.factors("transfer").sup) == (0.95, 1.0)
     assert (ls.factors("service_i").inf, ls.factors("service_i").sup) == (0.95, 1.05)
     pt = ls.factors("transfer", True)
-    assert (pt.inf, pt.sup) == (0.9, 1.1)  # post_tensioned beats the stage's own table
+    # the stage's table beats the kind-wide post_tensioned one, value by value: sup from
+    # the stage (a National Annex at transfer applies to both kinds), inf from post_tensioned
+    assert (pt.inf, pt.sup) == (0.9, 1.0)
+    assert (ls.factors("service_i", True).inf, ls.factors("service_i", True).sup) == (0.9, 1.1)
     assert (ls.factors("service_iii", True).inf, ls.factors("service_iii", True).sup) == (0.8, 1.1)
     assert PrestressFactors(0.9, 0.9).cases == (0.9,) and MEAN_PRESTRESS.cases == (1.0,)
 
@@ -531,3 +534,25 @@ def test_stress_plot_says_its_curves_are_the_mean(tmp_path: Path) -> None:
     mean = check_file(write_rect(tmp_path, factors="", name="mean.toml"))
     svg = plots.plot_stresses(mean, tmp_path / "m.svg", "SI").read_text(encoding="utf-8")
     assert "Curves with the mean prestress" not in svg
+
+
+def test_magnel_diagram_takes_the_factors(tmp_path: Path) -> None:
+    """Each Magnel line is drawn for each factor, so the design point is inside the region
+    exactly where the check passes at that station (a review found the mean alone)."""
+    from prestress.analysis import check_file
+    from prestress.present import plots
+
+    r = check_file(write_rect(tmp_path))
+    setup = plots.magnel_lines(r)
+    stages = {s.key: s for s in r.stages}
+    assert any("(P × 0.95)" in ln.label for ln in setup.lines)
+    assert any("(P × 1.05)" in ln.label for ln in setup.lines)
+    by_fiber: dict[tuple[str, str], bool] = {}
+    for ln in setup.lines:
+        feasible = setup.P_i * (ln.a + ln.b * setup.e) + ln.c <= 1e-12
+        key = (ln.stage, ln.fiber)
+        by_fiber[key] = by_fiber.get(key, True) and feasible
+    for (stage, fiber), feasible in by_fiber.items():
+        st = next(s for s in stages[stage].stations if abs(s.x - setup.x) < 1e-6)
+        assert feasible == st.fibers[fiber].ok, (stage, fiber)
+    assert not all(by_fiber.values())  # this girder fails with the lower factor

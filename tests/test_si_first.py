@@ -36,3 +36,30 @@ def test_an_si_job_error_quotes_metres(tmp_path: Path) -> None:
     with pytest.raises(InputError) as err:
         load_job(write_job(tmp_path, text))
     assert "got 26.00 m" in str(err.value) and "ft" not in str(err.value)
+
+
+@pytest.mark.parametrize(
+    ("old", "new", "words"),
+    [
+        ('fci = "37.92116511 MPa"', 'fci = "55 MPa"', ["(48.3 MPa)", "got 55 MPa"]),
+        ("count = 12", "count = 30", ["x = -737 mm, y = 51 mm"]),
+    ],
+)
+def test_si_input_errors_quote_si(tmp_path: Path, old: str, new: str, words: list[str]) -> None:
+    text = SI_EXAMPLE.read_text(encoding="utf-8")
+    assert old in text
+    with pytest.raises(InputError) as err:
+        check_file(write_job(tmp_path, text.replace(old, new, 1)))
+    message = str(err.value)
+    assert all(w in message for w in words), message
+    assert "ksi" not in message.split("expected", 1)[1].split("(", 1)[0]
+
+
+def test_strand_set_labels_in_the_job_units_whoever_builds_them() -> None:
+    """The design search rebuilds layouts outside the job reader: same labels (a review)."""
+    from prestress.design import job_with_rows
+
+    job = load_job(SI_EXAMPLE)
+    rebuilt = job_with_rows(job, job.rows)
+    assert [s.label for s in rebuilt.layout.sets] == [s.label for s in job.layout.sets]
+    assert all(" mm" in s.label for s in job.layout.sets)

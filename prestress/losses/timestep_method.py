@@ -53,6 +53,7 @@ from prestress.units import KSI_MPA
 if TYPE_CHECKING:
     from prestress.analysis import Girder
     from prestress.losses.models import CreepShrinkageModel
+    from prestress.model import Times
 
 #: The creep and shrinkage models the job may name, with what each is.
 MODEL_TITLES = {
@@ -65,6 +66,16 @@ MODEL_TITLES = {
 #: Days after deck placement at which the superimposed dead load is applied (common practice:
 #: barriers and surfacing follow the deck by some weeks).
 SUPERIMPOSED_DELAY_DAYS = 30.0
+
+
+def superimposed_age(t: Times) -> float:
+    """Age (days) at which the analysis applies the superimposed dead load.
+
+    30 days after deck placement (common practice), but no later than halfway to the final
+    age.
+    """
+    return min(t.deck_placement + SUPERIMPOSED_DELAY_DAYS, 0.5 * (t.deck_placement + t.final))
+
 
 #: Moist curing of the cast-in-place deck, days (common practice).
 DECK_CURING_DAYS = 7.0
@@ -232,7 +243,7 @@ def analyse(
     M_span = girder.self_weight * (job.length**2 / 8.0 - job.length * a / 2.0)
     M_deck = midspan_noncomposite_moment(girder)
     M_sdl = (job.loads.superimposed_dead + job.loads.wearing_surface) * job.span**2 / 8.0
-    t_sdl = min(t.deck_placement + SUPERIMPOSED_DELAY_DAYS, 0.5 * (t.deck_placement + t.final))
+    t_sdl = superimposed_age(t)
     events = [
         LoadEvent(t.transfer, M_len, 0.0, "girder", "girder self-weight (girder length)"),
         LoadEvent(

@@ -35,6 +35,11 @@ def quantity(v: float | None, system: str, role: str) -> dict[str, Any] | None:
     return {"value": value(v, system, role), "unit": ascii_label(label(system, role))}
 
 
+def station_matches(name: str, words: tuple[str, ...]) -> bool:
+    """Whether a station's name contains one of the words (``--stations``; any case)."""
+    return any(w.lower() in name.lower() for w in words)
+
+
 def fmt(v: float | None, system: str, role: str, digits: int = 3) -> str:
     """A number in the output unit with sensible precision ('—' for None)."""
     if v is None:
@@ -51,6 +56,8 @@ def fmt(v: float | None, system: str, role: str, digits: int = 3) -> str:
         decimals = 3 - math.floor(math.log10(abs(m)))
         if abs(round(m, decimals)) >= 1000.0:  # 999.96×10⁶ prints as 1.000×10⁹
             k, m, decimals = k + 3, m / 1000.0, 3
+        else:  # 9.99996 prints as 10.00, not 10.000: the figures of the rounded mantissa
+            decimals = max(0, 3 - math.floor(math.log10(abs(round(m, decimals)))))
         sup = str(k).translate(str.maketrans("0123456789-", "⁰¹²³⁴⁵⁶⁷⁸⁹⁻"))
         return f"{m:.{decimals}f}×10{sup}".replace("-", "−")
     # decimals by magnitude, never more for a larger number, judged on the number as it will

@@ -24,6 +24,7 @@ from prestress.present.common import (
     loads_title,
     signed,
     stage_limits,
+    station_matches,
 )
 
 PASS = "[green]ok[/]"
@@ -311,7 +312,7 @@ def loads_table(
         t.add_column("V min", justify="right", no_wrap=True)
     a = result.girder.job.bearing_offset
     for i, st in enumerate(le.stations):
-        if stations is not None and not any(w.lower() in st.name.lower() for w in stations):
+        if stations is not None and not station_matches(st.name, stations):
             continue
         cells = [st.name, fmt(st.x - a, system, "position", 2)]
         cells += [fmt(float(le.moments[k][i]), system, "moment", 1) for k in keys]
@@ -486,9 +487,7 @@ def render(
         if stations is not None:
             from dataclasses import replace
 
-            keep = tuple(
-                st for st in stage.stations if any(w.lower() in st.name.lower() for w in stations)
-            )
+            keep = tuple(st for st in stage.stations if station_matches(st.name, stations))
             stage = replace(stage, stations=keep)
             if not keep:
                 continue

@@ -15,6 +15,7 @@ arithmetic on the check's own figures and needs no matplotlib.
 
 from __future__ import annotations
 
+import itertools
 import math
 import os
 from collections.abc import Callable, Sequence
@@ -499,18 +500,15 @@ def _time_step_curve(result: CheckResult) -> tuple[list[tuple[float, float]], st
     the superimposed loads: the path the method computes between its milestones, elastic
     gains from later loads included (as ``prestress losses --at`` gives it).
     """
-    import warnings
-
-    from prestress.losses.timestep_method import history
+    from prestress.losses.timestep_method import history, superimposed_age
 
     job = result.girder.job
     t = job.times
     ages = set(np.geomspace(t.transfer, t.final, 48).tolist())
-    ages.update(a for a in (t.deck_placement - 1e-3, t.deck_placement + 1e-3) if a > t.transfer)
+    for event in (t.deck_placement, superimposed_age(t)):  # the steps of the loads
+        ages.update(a for a in (event - 1e-3, event + 1e-3) if t.transfer < a < t.final)
     model = result.losses.method.removeprefix("time-step-")
-    with warnings.catch_warnings():  # its caveats are the method's notes already
-        warnings.simplefilter("ignore")
-        rows = history(result.girder, model, tuple(sorted(a for a in ages if a <= t.final)))
+    rows = history(result.girder, model, tuple(sorted(a for a in ages if a <= t.final)))
     return (
         [(r.age, r.strand_stress) for r in rows],
         "time-step path (elastic gains of later loads included)",
@@ -683,7 +681,8 @@ class MagnelLine:
         sense: "tension" (f ≤ limit) or "compression" (f ≥ limit).
         limit: the limit stress, MPa (tension +, compression −).
         moment: the moment on the gross girder section, N*mm (composite moments converted).
-        R: ratio of the stage's force to the force just after transfer.
+        R: ratio of the stage's force to the force just after transfer (× the limit set's factor
+            on the prestress, where it gives one).
         a: constant term (1/mm²).
         b: coefficient of e (1/mm³).
         c: coefficient of u (MPa).
@@ -909,11 +908,15 @@ def magnel_lines(result: CheckResult, station: str | None = None) -> MagnelSetup
         here = next((s for s in stage.stations if abs(s.x - st.x) < 1e-6), None)
         if here is None:
             continue
-        R = 1.0 if stage.key == "transfer" else P_e / P_i
+        R_mean = 1.0 if stage.key == "transfer" else P_e / P_i
         A_s, s_of, n_of, d = release_sec if stage.key == "transfer" else gross_sec
         M_nc = sum(v for k, v in here.moments.items() if k not in COMPOSITE_LOADS)
         M_c = sum(v for k, v in here.moments.items() if k in COMPOSITE_LOADS)
-        for fiber, sense in wanted[stage.key]:
+        # the limit set's factors on the prestress (EN 1992-1-1 5.10.9): a line per factor,
+        # the prestress terms × the factor, as the check takes each (one line when none)
+        factors = job.limits.factors(stage.limits_key or stage.key, job.post_tensioned)
+        for (fiber, sense), gamma in itertools.product(wanted[stage.key], factors.cases):
+            R = R_mean * gamma
             fr = here.fibers.get(fiber)
             if fr is None:
                 continue
@@ -935,9 +938,10 @@ def magnel_lines(result: CheckResult, station: str | None = None) -> MagnelSetup
             when = _SHORT[stage.key]
             if stage.key == "transfer" and job.post_tensioned:
                 when = "stressing"
+            factor = "" if factors.unity else f" (P × {gamma:g})"
             lines.append(
                 MagnelLine(
-                    f"{when}, {where} {sense}",
+                    f"{when}, {where} {sense}{factor}",
                     stage.key,
                     fiber,
                     sense,
