@@ -33,7 +33,9 @@ def write_atomic(path: str | Path, data: str | bytes) -> None:
 def check_output_path(
     target: str | Path, *, inputs: tuple[Path, ...] | list[Path] = (), force: bool = False
 ) -> None:
-    """Refuse an output path that is one of the inputs, or that exists (unless ``force``).
+    """Refuse an output path that is a folder, an input, or an existing file without force.
+
+    An input is refused even with ``force``: the user's files are never overwritten.
 
     Raises:
         InputError: naming the output file.
@@ -41,6 +43,12 @@ def check_output_path(
     from prestress.errors import InputError
 
     target = Path(target)
+    if target.is_dir():
+        raise InputError(
+            "a file path for the output, not a folder",
+            file=str(target),
+            got="an existing folder",
+        )
     for src in inputs:
         if target.resolve() == Path(src).resolve():
             raise InputError(

@@ -17,6 +17,7 @@ from prestress.errors import InputError
 
 if TYPE_CHECKING:
     from prestress.analysis import CheckResult
+    from prestress.model import Job
 
 EXIT_OK, EXIT_FAIL, EXIT_INPUT, EXIT_INTERNAL = 0, 1, 2, 3
 
@@ -227,6 +228,13 @@ def _check_output(target: Path, *, inputs: Sequence[Path], force: bool) -> None:
     check_output_path(target, inputs=list(inputs), force=force)
 
 
+def _inputs(job: Job, args: argparse.Namespace) -> list[Path]:
+    """The files a job reads (job, limit set, section libraries): never an output."""
+    from prestress.inputs import input_files
+
+    return input_files(job, tuple(getattr(args, "library", ()) or ()))
+
+
 def _write_output(path: str, text: str, *, inputs: Sequence[Path], force: bool) -> None:
     """Write an output file atomically after :func:`_check_output`."""
     from prestress.atomic import write_atomic
@@ -251,12 +259,19 @@ def cmd_check(args: argparse.Namespace) -> int:
         if args.json == "-":
             sys.stdout.write(text)
         else:
-            inputs = [Path(args.job)]
-            _write_output(args.json, text, inputs=inputs, force=args.force)
+            _write_output(
+                args.json, text, inputs=_inputs(result.girder.job, args), force=args.force
+            )
     if args.csv:
         from prestress.present.csv_out import write_csv
 
-        written = write_csv(result, Path(args.csv), system, force=args.force)
+        written = write_csv(
+            result,
+            Path(args.csv),
+            system,
+            force=args.force,
+            inputs=_inputs(result.girder.job, args),
+        )
         if args.json != "-":
             print(f"wrote {len(written)} CSV files to {args.csv}", file=sys.stderr)
     if args.json != "-":
@@ -313,6 +328,7 @@ def cmd_report(args: argparse.Namespace) -> int:
     _check_output(out, inputs=[Path(args.job)], force=args.force)
     job_text = Path(args.job).read_bytes()
     result = check_file(args.job, cli_libraries=tuple(args.library))
+    _check_output(out, inputs=_inputs(result.girder.job, args), force=args.force)
     write_report(result, out, job_text=job_text, system=args.units, force=args.force)
     print(f"wrote {out}")
     return EXIT_OK if result.ok else EXIT_FAIL
@@ -328,6 +344,7 @@ def cmd_plot(args: argparse.Namespace) -> int:
         raise InputError("an output file ending in .png or .svg", file=str(out), field="--out")
     _check_output(out, inputs=[Path(args.job)], force=args.force)
     result = check_file(args.job, cli_libraries=tuple(args.library))
+    _check_output(out, inputs=_inputs(result.girder.job, args), force=args.force)
     system = args.units or result.girder.job.units
     if args.kind == "magnel":
         plots.plot_magnel(result, out, system, station=args.station)
@@ -348,7 +365,13 @@ def cmd_design(args: argparse.Namespace) -> int:
 
     result = design_file(args.job, cli_libraries=tuple(args.library))
     if args.write and result.ok:
-        write_design_job(args.job, result.leanest, args.write, force=args.force)
+        write_design_job(
+            args.job,
+            result.leanest,
+            args.write,
+            force=args.force,
+            inputs=_inputs(result.job, args),
+        )
     elif args.write:  # the search itself is shown, as without --write; nothing is written
         print(f"prestress: no pattern passes: {args.write} not written", file=sys.stderr)
     if args.json:
@@ -633,6 +656,7 @@ def _section_draw(args: argparse.Namespace) -> int:
         from prestress.jobfile import load_job
 
         job = load_job(args.job)
+        _check_output(out, inputs=_inputs(job, args), force=args.force)
         girder = resolve_girder(job, cli_libraries=tuple(args.library))
         job = girder.job
         strands = [(float(x), r.height) for r in job.rows for x in r.x_positions()]
@@ -690,6 +714,8 @@ def cmd_examples(args: argparse.Namespace) -> int:
             print(f"  {p.relative_to(src)}")
         return EXIT_OK
     dest = Path(args.copy)
+    if dest.exists() and not dest.is_dir():
+        raise InputError("a folder to copy the examples into", file=str(dest), got="a file")
     clashes = [p for p in files if (dest / p.relative_to(src)).exists()]
     if clashes:
         raise InputError(

@@ -1926,6 +1926,7 @@ def write_design_job(
     *,
     force: bool = False,
     keep_design: bool = False,
+    inputs: list[Path] | None = None,
 ) -> Path:
     """Write a new job file: the original, with the candidate's pattern as its strand rows.
 
@@ -1941,7 +1942,8 @@ def write_design_job(
     from prestress.atomic import check_output_path, write_atomic
 
     src, target = Path(original_toml_path), Path(out_path)
-    check_output_path(target, inputs=[src], force=force)
+    # never over the original, nor any other file it reads (``inputs``, e.g. its limit set)
+    check_output_path(target, inputs=[src, *(inputs or [])], force=force)
     c = candidate.candidate if isinstance(candidate, RankedCandidate) else candidate
     raw = src.read_bytes().decode("utf-8")
     data = read_toml(src)

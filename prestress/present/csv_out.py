@@ -229,7 +229,12 @@ def loads_rows(result: CheckResult, system: str) -> list[list[str]]:
 
 
 def write_csv(
-    result: CheckResult, folder: str | Path, system: str | None = None, *, force: bool = False
+    result: CheckResult,
+    folder: str | Path,
+    system: str | None = None,
+    *,
+    force: bool = False,
+    inputs: list[Path] | None = None,
 ) -> list[Path]:
     """Write the check as CSV files: one per stage, ``loads.csv``, ``losses.csv``, ``zone.csv``.
 
@@ -240,7 +245,9 @@ def write_csv(
         result: the check.
         folder: the folder to write into.
         system: "US" or "SI" (default: the job's output units).
-        force: replace existing files.
+        force: replace existing files (never an input).
+        inputs: the files the job reads, none of which may be a target (default: the job
+            file; the command line gives :func:`prestress.inputs.input_files`).
 
     Returns:
         The files written, in order (stages in time order, then loads, losses and zone).
@@ -259,19 +266,12 @@ def write_csv(
         tables.append((out / "loads.csv", loads_rows(result, system)))
     tables.append((out / "losses.csv", losses_rows(result, system)))
     tables.append((out / "zone.csv", zone_rows(result, system)))
-    job_file = Path(result.girder.job.file) if result.girder.job.file else None
+    from prestress.atomic import check_output_path, write_atomic
+
+    if inputs is None:
+        inputs = [Path(result.girder.job.file)] if result.girder.job.file else []
     for path, _ in tables:
-        if job_file is not None and job_file.exists() and path.resolve() == job_file.resolve():
-            raise InputError(
-                "an output path different from the job file", file=str(path), got="the job file"
-            )
-        if path.exists() and not force:
-            raise InputError(
-                "a path that does not exist yet (or --force to replace it)",
-                file=str(path),
-                got="an existing file",
-            )
-    from prestress.atomic import write_atomic
+        check_output_path(path, inputs=inputs, force=force)
 
     for path, rows in tables:
         write_atomic(path, _text(rows))

@@ -1651,30 +1651,24 @@ def _read(role: str, description: str, path: Path) -> InputFile:
 
 
 def limits_file(result: CheckResult) -> InputFile:
-    """The limit-set file of the job, found as the job reader finds it.
+    """The limit-set file of the job, found as the job reader finds it (``inputs.limits_path``).
 
     ``[limits] set = "name"``: the shipped ``examples/limits/<name>.toml``; ``[limits] file``:
     that path, relative to the job file's folder; otherwise the limits are inline in the job
-    file. The job file's ``[limits]`` table is read again with the project's TOML reader.
+    file.
     """
-    from prestress.paths import shipped_examples_dir
-    from prestress.tomlread import read_toml
+    from prestress.inputs import limits_path
 
-    job = result.girder.job
     role = "limit-set file"
     try:
-        lim = read_toml(job.file).get("limits")
+        path, how = limits_path(result.girder.job)
     except InputError:
         return InputFile(role, "not known (the job file could not be read again)")
-    if isinstance(lim, dict) and isinstance(lim.get("set"), str):
-        name = lim["set"]
-        path = shipped_examples_dir() / "limits" / f"{name}.toml"
-        return _read(role, f"shipped limit set '{name}' ([limits] set)", path)
-    if isinstance(lim, dict) and isinstance(lim.get("file"), str):
-        ref = Path(lim["file"])
-        path = ref if ref.is_absolute() else Path(job.file).parent / ref
+    if path is None:
+        return InputFile(role, "given inline in the job file ([limits])")
+    if how == "file":
         return _read(role, "[limits] file of the job", path)
-    return InputFile(role, "given inline in the job file ([limits])")
+    return _read(role, f"shipped limit {how} ([limits] set)", path)
 
 
 def section_file(result: CheckResult) -> InputFile:

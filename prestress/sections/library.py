@@ -147,13 +147,29 @@ def search_folders(
     *,
     base: Path | None = None,
 ) -> list[Path]:
-    """The ordered list of library folders (user folders first, shipped last)."""
+    """The ordered list of library folders (user folders first, shipped last).
+
+    Raises:
+        InputError: a folder given with ``--library`` or in ``PRESTRESS_SECTIONS`` that is
+            not an existing folder (a mistyped folder would leave the shipped shape in use
+            without a word; the job's own folders are checked when the job is read).
+    """
     folders: list[Path] = []
     env = [p for p in os.environ.get(ENV_VAR, "").split(os.pathsep) if p.strip()]
-    for raw in (*job_folders, *cli_folders, *env):
+    given = [(raw, None) for raw in job_folders]
+    given += [(raw, ("command line", "--library")) for raw in cli_folders]
+    given += [(raw, ("environment", ENV_VAR)) for raw in env]
+    for raw, origin in given:
         p = Path(raw).expanduser()
         if base is not None and not p.is_absolute():
             p = base / p
+        if origin is not None and not p.is_dir():
+            raise InputError(
+                "an existing folder of section files",
+                file=origin[0],
+                field=origin[1],
+                got=f"{raw} (no such folder)" if not p.exists() else f"{raw} (not a folder)",
+            )
         folders.append(p)
     folders.append(shipped_sections_dir())
     unique: list[Path] = []
@@ -166,7 +182,7 @@ def search_folders(
     return unique
 
 
-def _files_in(folder: Path) -> list[Path]:
+def library_files(folder: Path) -> list[Path]:
     """TOML files directly in a folder, skipping links that lead outside it."""
     if not folder.is_dir():
         return []
@@ -227,7 +243,7 @@ def load_library(folders: list[Path]) -> Library:
     shipped_dir = shipped_sections_dir().resolve()
     for folder in folders:
         is_shipped = folder.resolve() == shipped_dir
-        for path in _files_in(folder):
+        for path in library_files(folder):
             for entry in read_library_file(path, shipped=is_shipped):
                 key = entry.name.lower()
                 other = lib.entries.get(key)
