@@ -304,6 +304,15 @@ def _console_filters(
                 field="--stage",
                 got=repr(bad[0]),
             )
+        present = {k for s in result.stages for k in (s.key, s.limits_key) if k}
+        for k in stages:
+            if k not in present:  # e.g. handling without [handling], or a third case of two
+                raise InputError(
+                    "a stage of this job: " + ", ".join(s.key for s in result.stages),
+                    file="command line",
+                    field="--stage",
+                    got=repr(k),
+                )
     stations = None
     if args.stations:
         stations = tuple(w.strip() for w in args.stations.split(",") if w.strip())
@@ -601,6 +610,12 @@ def cmd_section(args: argparse.Namespace) -> int:
             "both --deck-thickness and --deck-width, or neither",
             file="command line",
             field="--deck-width" if b is None else "--deck-thickness",
+        )
+    if args.modular_ratio is not None and (args.fc_girder or args.fc_deck):
+        raise InputError(
+            "either --modular-ratio or the two strengths (--fc-girder, --fc-deck), not both",
+            file="command line",
+            field="--modular-ratio",
         )
     if t is not None and b is not None:
         if args.modular_ratio is not None:

@@ -269,3 +269,17 @@ def test_a_bad_console_filter_writes_nothing(tmp_path, capsys) -> None:
     assert main(["check", str(US_EXAMPLE), "--json", str(out), "--stage", "final"]) == 2
     assert not out.exists()
     capsys.readouterr()
+
+
+def test_stage_filter_for_a_stage_the_job_does_not_have(capsys) -> None:
+    """--stage handling on a job without [handling] says so (it printed no stage at all)."""
+    assert main(["check", str(US_EXAMPLE), "--stage", "handling"]) == 2
+    err = capsys.readouterr().err
+    assert "--stage" in err and "'handling'" in err and "transfer" in err
+
+
+def test_section_show_refuses_both_ways_of_giving_n(capsys) -> None:
+    argv = ["section", "show", "AASHTO-Type-II", "--deck-thickness", "8 in", "--deck-width"]
+    argv += ["84 in", "--modular-ratio", "0.5", "--fc-girder", "6 ksi", "--fc-deck", "4 ksi"]
+    assert main(argv) == 2
+    assert "not both" in capsys.readouterr().err

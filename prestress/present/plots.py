@@ -1160,7 +1160,8 @@ def plot_magnel(
         0.1,
         0.01,
         f"Gross girder section{net}R = Pe/Pi = {setup.R:.3f}; composite moments converted to "
-        f"the girder section by Z/Sc; {SIGN_CONVENTION}.",
+        f"the girder section by Z/Sc; {SIGN_CONVENTION}.\nRelease and the service stages only "
+        "(the classical diagram): handling and deck placement are in the check and the zone.",
         fontsize=_FONT - 1,
         va="bottom",
     )

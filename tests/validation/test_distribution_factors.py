@@ -221,6 +221,13 @@ def test_range_limits_are_inclusive():
     # The tables state the ranges with "<=", so the limits themselves are accepted.
     assert ll.g_moment_interior_multi_lane(3.5, 20.0, 4.5, 10_000.0, 4) > 0
     assert ll.g_moment_interior_multi_lane(16.0, 240.0, 12.0, 7_000_000.0, 4) > 0
+    # limits written in other units come back with round-off (42 in = 3.4999999... ft after
+    # the internal millimetres): still on the limit (a user review found them refused)
+    s_from_in = 42.0 * 25.4 / 304.8
+    l_from_m = 6.096 * 1000.0 / 304.8
+    assert ll.g_moment_interior_multi_lane(s_from_in * (1 - 1e-12), l_from_m, 4.5, 1e4, 4) > 0
+    with pytest.raises(ValueError, match="S"):
+        ll.g_moment_interior_multi_lane(3.4999, 20.0, 4.5, 10_000.0, 4)
 
 
 def test_skew_ranges():

@@ -83,9 +83,15 @@ _NB_MIN = 4
 _DE_RANGE_FT = (-1.0, 5.5)
 
 
+#: Relative round-off allowed at the ends of a range: a bound written in other units (42 in,
+#: 1.0668 m for 3.5 ft) converts to 3.4999999... ft (the ranges are inclusive).
+_RANGE_ROUND_OFF = 1e-9
+
+
 def _check_range(name: str, value: float, lo: float, hi: float, unit: str, table: str) -> None:
-    """Raise ValueError unless lo <= value <= hi (NaN fails)."""
-    if not (lo <= value <= hi):
+    """Raise ValueError unless lo <= value <= hi, bounds included to round-off (NaN fails)."""
+    tol = _RANGE_ROUND_OFF * max(abs(lo), abs(hi))
+    if not (lo - tol <= value <= hi + tol):
         raise ValueError(
             f"{name} = {value:g} {unit} is outside the range of applicability "
             f"{lo:g} <= {name} <= {hi:g} {unit} of {table}"
