@@ -105,7 +105,7 @@ def resolve_girder(job: Job, *, cli_libraries: tuple[str, ...] = ()) -> Girder:
             entry.family, entry.dimensions, file=entry.file, field=f"{entry.field}.dimensions"
         )
         name, source, family = entry.name, entry.source, entry.family
-    _check_strands_inside(job, resolved)
+    notices += _check_strands_inside(job, resolved)
     if job.layout is not None and any(s.y_end is not None for s in job.layout.sets):
         # harped strands: their whole path inside the concrete (shapely only for them)
         from prestress.layout import check_harp_paths
@@ -323,11 +323,100 @@ def _distance_to_edges(rings: list[np.ndarray], x: float, y: float) -> float:
     return best
 
 
-def _check_strands_inside(job: Job, outline: ResolvedSection) -> None:
+#: AASHTO LRFD 9th Ed. (2020) Table 5.10.3.3.1-1 (from memory): least centre-to-centre
+#: spacing of pretensioning strands, in., for nominal strand diameters up to the first value,
+#: in. (0.52 in: the "0.5 in special" strand).
+MIN_STRAND_SPACING_IN = ((0.52, 1.75), (0.60, 2.00))
+
+#: Strand spacings this much (mm) below the minimum pass: the 50 mm pitch of metric casting
+#: beds stands for the 2 in of the table (common practice).
+STRAND_SPACING_TOLERANCE_MM = 1.0
+
+STRAND_SPACING_CLAUSE = "AASHTO LRFD 9th Ed. (2020) 5.10.3.3.1, Table 5.10.3.3.1-1, from memory"
+
+
+def minimum_strand_spacing(diameter: float) -> tuple[float, str]:
+    """The least centre-to-centre spacing of pretensioning strands (mm) and its basis in words.
+
+    AASHTO LRFD 9th Ed. (2020) 5.10.3.3.1 (from memory): within the transfer length at each
+    end, strands not less apart than 1.33 × the maximum aggregate size, clear, nor than the
+    centre-to-centre spacing of Table 5.10.3.3.1-1: 1.75 in for strands up to 0.5 in (0.52 in
+    "special" included), 2.00 in for 0.6 in strands. Larger strands: 2.00 in × d_b / 0.6 in
+    (an extrapolation of this project, not the table's). The aggregate limit is not applied
+    (a job gives no aggregate size).
+
+    Args:
+        diameter: the nominal strand diameter d_b, mm.
+    """
+    from prestress.units import INCH_MM
+
+    d_in = diameter / INCH_MM
+    for up_to, spacing in MIN_STRAND_SPACING_IN:
+        if d_in <= up_to + 1e-3:
+            return spacing * INCH_MM, STRAND_SPACING_CLAUSE
+    spacing = MIN_STRAND_SPACING_IN[-1][1] * d_in / MIN_STRAND_SPACING_IN[-1][0]
+    return spacing * INCH_MM, (
+        f"{STRAND_SPACING_CLAUSE}, scaled from 2.00 in for 0.6 in strands by d_b "
+        "(an extrapolation of this project)"
+    )
+
+
+def strand_spacing_notes(job: Job) -> list[str]:
+    """Detailing notes on strands closer than the minimum spacing (a note, not an error).
+
+    Checked at midlength and at the girder ends (harped strands in their column on the
+    axis), one note per pair of rows (two strands of one row: one note for the row) with the
+    closest two strands; values in both systems, the job's first (notes are written before
+    ``--units`` is known). Strands nearer than one diameter are refused when the job is read
+    (:func:`prestress.jobfile.load_job`); a job built otherwise (the design search's
+    candidates) gets this note for them too.
+    """
+    from prestress.jobfile import closest_strands, strand_places
+
+    if not job.rows:
+        return []
+    least, basis = minimum_strand_spacing(job.strand.diameter)
+
+    def both(v: float) -> str:
+        return in_both(job.units, show_dimension(v, "US"), show_dimension(v, "SI"))
+
+    def show(v: float) -> str:
+        return show_dimension(v, job.units)
+
+    def label(i: int) -> str:
+        return f"row {i + 1} (at {show_dimension(job.rows[i].height, job.units)})"
+
+    mid, ends = strand_places(job.rows)
+    harped = {i for i, r in enumerate(job.rows) if r.harp is not None}
+    notes = []
+    for where, places in (("at midlength", mid), ("at the girder ends", ends)):
+        close = closest_strands(places, least - STRAND_SPACING_TOLERANCE_MM)
+        for (a, b), (dist, pa, pb) in close.items():
+            if not harped & {a, b}:
+                if places is ends:
+                    continue  # straight strands: as at midlength, reported once
+                place = "all along the girder"
+            else:
+                place = where
+            rows = f"{label(a)}" if a == b else f"{label(a)} and {label(b)}"
+            notes.append(
+                f"detailing: {rows}: two strands {both(dist)} apart centre to centre {place} "
+                f"(x = {show(pa[0])}, y = {show(pa[1])} and x = {show(pb[0])}, "
+                f"y = {show(pb[1])}), less than {both(least)}, the least spacing of "
+                f"{show_dimension(job.strand.diameter, job.units)} strands ({basis}; its "
+                "clear distance of 1.33 × the aggregate size is not checked)"
+            )
+    return notes
+
+
+def _check_strands_inside(job: Job, outline: ResolvedSection) -> list[str]:
     """Every strand (and duct) must lie inside the concrete with its radius of cover.
 
     Checked at midlength and, for harped rows, at the girder ends too; tendons along their
     profile on the girder's axis.
+
+    Returns:
+        Detailing notes on the strands' spacing (:func:`strand_spacing_notes`).
     """
     rings = [np.asarray(outline.exterior, dtype=float)]
     rings += [np.asarray(h, dtype=float) for h in outline.holes]
@@ -361,6 +450,7 @@ def _check_strands_inside(job: Job, outline: ResolvedSection) -> None:
                     got=f"a strand at x = {show_dimension(x, job.units)}, "
                     f"y = {show_dimension(y, job.units)} outside the section",
                 )
+    return strand_spacing_notes(job)
 
 
 # ------------------------------------------------------------------------------------------

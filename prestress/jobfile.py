@@ -8,6 +8,7 @@ key. The job-file format is documented in ``docs/job-file.md`` and by the exampl
 from __future__ import annotations
 
 import itertools
+import re
 from contextvars import ContextVar
 from pathlib import Path
 
@@ -580,8 +581,12 @@ def _percent(t: Table, key: str) -> float:
             value = float("inf")
     else:
         value = 100.0 * to_internal(raw, "dimensionless", field=t.field(key), file=t.file)
-    if not 0.0 <= value <= 100.0:
-        raise t.error(key, "a relative humidity from 0 to 100 percent", f"{value:g}")
+    if not 0.0 < value <= 100.0:  # no concrete is kept in perfectly dry air
+        raise t.error(
+            key,
+            "a relative humidity above 0 and up to 100 percent (0 to 100, 0 excluded)",
+            f"{value:g}",
+        )
     if isinstance(raw, int | float) and 0.0 < value <= 1.0:
         raise t.error(
             key,
@@ -804,6 +809,173 @@ def _row(r: Table, index: int, length: float) -> StrandRow:
         debond=tuple(resolved),
         index=index,
     )
+
+
+def strand_places(
+    rows: list[StrandRow] | tuple[StrandRow, ...],
+) -> tuple[list[tuple[int, float, float]], list[tuple[int, float, float]]]:
+    """Where every strand of the rows lies: at midlength and at the girder ends.
+
+    Args:
+        rows: the strand rows (heights and x in mm).
+
+    Returns:
+        Two lists of (index of the row in ``rows``, x across, y up from the girder bottom), mm:
+        at midlength every strand at its row's height (harped strands between their
+        hold-downs); at the girder ends straight strands at their row's height and harped
+        strands in their row's column on the girder axis, the highest at ``end_height``, the
+        others ``end_spacing`` below one another (as :func:`build_layout` places them).
+    """
+    mid: list[tuple[int, float, float]] = []
+    ends: list[tuple[int, float, float]] = []
+    for i, row in enumerate(rows):
+        xs = [float(x) for x in row.x_positions()]
+        mid += [(i, x, float(row.height)) for x in xs]
+        if row.harp is None:
+            ends += [(i, x, float(row.height)) for x in xs]
+        else:
+            top, _hold_downs, step = row.harp
+            ends += [(i, 0.0, float(top - k * step)) for k in range(row.count)]
+    return mid, ends
+
+
+def closest_strands(
+    places: list[tuple[int, float, float]], below: float
+) -> dict[tuple[int, int], tuple[float, tuple[float, float], tuple[float, float]]]:
+    """The closest two strands of each pair of rows nearer than ``below``, centre to centre.
+
+    Args:
+        places: (row index, x, y) of each strand, mm (see :func:`strand_places`).
+        below: the distance, mm: only strands closer than it are returned.
+
+    Returns:
+        For each pair of row indices (a, b), a ≤ b (a = b: two strands of one row), the least
+        distance (mm) and the (x, y) of the two strands, the one of row a first; pairs in the
+        order their second strand comes in ``places``.
+    """
+    out: dict[tuple[int, int], tuple[float, tuple[float, float], tuple[float, float]]] = {}
+    if len(places) < 2:
+        return out
+    row = np.array([p[0] for p in places], dtype=np.int64)
+    xy = np.array([(p[1], p[2]) for p in places], dtype=float)
+    for k in range(1, len(places)):
+        dist = np.hypot(xy[:k, 0] - xy[k, 0], xy[:k, 1] - xy[k, 1])
+        for j in np.flatnonzero(dist < below):
+            a, b = int(row[j]), int(row[k])
+            first, second = (j, k) if a <= b else (k, j)
+            key = (min(a, b), max(a, b))
+            if key not in out or dist[j] < out[key][0]:
+                out[key] = (float(dist[j]), tuple(xy[first]), tuple(xy[second]))  # type: ignore[assignment]
+    return out
+
+
+def _check_strand_overlap(
+    rows: list[StrandRow],
+    fields: list[dict[str, str]],
+    diameter: float,
+    *,
+    file: str,
+    units: str,
+) -> None:
+    """Refuse two strands closer than one strand diameter, centre to centre (they would overlap).
+
+    Checked at midlength and at the girder ends (where harped strands stand in their column on
+    the axis). Strands touching (exactly one diameter apart) are accepted here; a spacing less
+    than the detailing minimum of AASHTO LRFD 5.10.3.3.1 is a note of the check
+    (:func:`prestress.analysis.strand_spacing_notes`), not an error.
+
+    Args:
+        rows: the job's strand rows, in the order read ([[strands.rows]] first, then the grid).
+        fields: per row, the TOML path to name: "row" for the row, "within" for two of its own
+            strands at midlength, "end_within" and "end_cross" for its harped strands at the
+            ends (two of its own, one of another row's).
+        diameter: the strand diameter, mm.
+        file: the job file.
+        units: the job's units ("US" or "SI"), those of the message.
+    """
+    mid, ends = strand_places(rows)
+
+    def show(v: float) -> str:
+        return show_dimension(v, units)
+
+    for where, places in (
+        ("at midlength", mid),
+        ("at the girder ends (harped strands in their column on the axis)", ends),
+    ):
+        close = closest_strands(places, diameter - 1e-6)
+        if not close:
+            continue
+        (a, b), (dist, pa, pb) = next(iter(close.items()))
+        at_ends = places is ends
+        if a == b:
+            field = fields[b]["end_within" if at_ends and rows[b].harp else "within"]
+        elif at_ends and rows[b].harp is None:
+            field = fields[a]["end_cross"]
+        elif at_ends:
+            field = fields[b]["end_cross"]
+        elif fields[a]["row"] == fields[b]["row"] == "strands.grid":
+            field = "strands.grid.heights"
+        else:
+            field = fields[b]["row"]
+        same = fields[a]["row"] == fields[b]["row"]
+        of_a = "" if same else f" ({fields[a]['row']})"
+        of_b = "" if same else f" ({fields[b]['row']})"
+        raise InputError(
+            f"strands at least one strand diameter ({show(diameter)}) apart, centre to centre "
+            "(two strands cannot share a place)",
+            file=file,
+            field=field,
+            got=f"two strands {show(dist)} apart {where}: x = {show(pa[0])}, "
+            f"y = {show(pa[1])}{of_a} and x = {show(pb[0])}, y = {show(pb[1])}{of_b}",
+        )
+
+
+#: Names of the stations every check lists itself (:func:`prestress.stages.stations`); a
+#: station of the job may not take one, nor any "left/right debond end N" or "... N + lt".
+BUILT_IN_STATION_NAMES = (
+    "left end",
+    "right end",
+    "left bearing",
+    "right bearing",
+    "left lt",
+    "right lt",
+    "midspan",
+    *(f"{k / 10:.1f} span" for k in range(1, 10)),
+    "left lift point",
+    "right lift point",
+    "left hold-down",
+    "right hold-down",
+    "tendon profile point",
+)
+_DEBOND_END_STATION = re.compile(r"(left|right) debond end \d+( \+ lt)?")
+
+
+def _station_name(t: Table, index: int, earlier: dict[str, int]) -> str:
+    """The name of stations[index]: not empty, not a built-in station's, not used before.
+
+    Names are compared without case and surrounding spaces, as stations are looked up
+    (e.g. ``plot magnel --station``). ``earlier``: the names already read (folded) → index.
+    """
+    name = t.string("name", f"station {index + 1}")
+    key = " ".join(name.split()).lower()
+    if not key:
+        raise t.error("name", 'a station name, e.g. "splice" (not empty)', repr(name))
+    if key in BUILT_IN_STATION_NAMES or _DEBOND_END_STATION.fullmatch(key):
+        raise t.error(
+            "name",
+            "a name of the job's own, not one of the stations every check lists (left/right "
+            "end, bearing, lt, lift point, hold-down, debond end N, midspan, 0.1 span to 0.9 "
+            'span, tendon profile point), e.g. "splice"',
+            repr(name),
+        )
+    if key in earlier:
+        raise t.error(
+            "name",
+            f"a name used once (stations[{earlier[key]}] has it already)",
+            repr(name),
+        )
+    earlier[key] = index
+    return name
 
 
 def _grid_rows(g: Table, first_index: int) -> list[StrandRow]:
@@ -1065,10 +1237,23 @@ def _read_job(path: Path, top: Table) -> Job:
     lt_source = (
         "AASHTO LRFD 9th Ed. (2020) 5.9.4.3.1 (60 d_b)" if lt == lt_default else "given in the job"
     )
-    rows = [_row(r, i, length) for i, r in enumerate(st.tables("rows", required=False))]
+    row_tables = st.tables("rows", required=False)
+    rows = [_row(r, i, length) for i, r in enumerate(row_tables)]
+    fields = [
+        {
+            "row": r.path,
+            "within": r.field("positions" if r.has("positions") else "spacing"),
+            "end_within": f"{r.field('harp')}.end_spacing",
+            "end_cross": f"{r.field('harp')}.end_height",
+        }
+        for r in row_tables
+    ]
     grid = st.table("grid", required=False)
     if grid is not None:
-        rows += _grid_rows(grid, len(rows))
+        grid_rows = _grid_rows(grid, len(rows))
+        rows += grid_rows
+        fields += [{"row": grid.path, "within": grid.field("positions")}] * len(grid_rows)
+    _check_strand_overlap(rows, fields, strand.diameter, file=file, units=units)
     if not rows and not tendons:
         raise st.error(
             "rows", "at least one [[strands.rows]] table or a [strands.grid]", "no strands"
@@ -1187,6 +1372,7 @@ def _read_job(path: Path, top: Table) -> Job:
         handling = Handling(lift, _dynamic_factors(hd))
         hd.done()
     user_stations = []
+    station_names: dict[str, int] = {}
     raw_st = top.raw("stations", [], expected="a list of stations")
     if not isinstance(raw_st, list):
         raise InputError(
@@ -1203,7 +1389,7 @@ def _read_job(path: Path, top: Table) -> Job:
         x = t_.quantity("at", "length", non_negative=True)
         if x > length:
             raise t_.error("at", "a position on the girder, from its left end")
-        user_stations.append((t_.string("name", f"station {i + 1}"), x))
+        user_stations.append((_station_name(t_, i, station_names), x))
         t_.done()
 
     lim = top.table("limits")

@@ -77,6 +77,34 @@ def elastic_shortening_gross(girder: Girder) -> tuple[float, dict[str, tuple[flo
     return loss, figures
 
 
+#: Relative humidity (percent) below which the AASHTO estimates are extrapolated: the lower end
+#: of the humidity range of the data behind AASHTO LRFD 9th Ed. (2020) 5.4.2.3 and the loss
+#: estimates of 5.9.3.3 and 5.9.3.4 built on it (from memory).
+AASHTO_LOWEST_HUMIDITY = 40.0
+
+
+def low_humidity_notes(girder: Girder, method: str, equations: str) -> list[str]:
+    """A note when the job's relative humidity lies below :data:`AASHTO_LOWEST_HUMIDITY`.
+
+    The job reader refuses 0 % and less; from above 0 to 40 % the AASHTO estimates still give
+    numbers (γh = 1.7 − 0.01 H, khs = 2.00 − 0.014 H, khc = 1.56 − 0.008 H grow linearly),
+    extrapolated beyond the range they were calibrated for.
+
+    Args:
+        girder: the girder (its job's ``times.relative_humidity``, percent).
+        method: the method's job-file name, which starts the note.
+        equations: the method's humidity terms and their clauses, in words.
+    """
+    rh = girder.job.times.relative_humidity
+    if rh >= AASHTO_LOWEST_HUMIDITY:
+        return []
+    return [
+        f"{method} method: RH = {rh:g} % is below {AASHTO_LOWEST_HUMIDITY:g} %, the lower end "
+        f"of the humidity range the AASHTO LRFD 9th Ed. (2020) estimates were calibrated for "
+        f"({equations}; range from memory); the long-term losses are extrapolated"
+    ]
+
+
 def before_transfer(girder: Girder) -> list[LossComponent]:
     """The losses in the bed before transfer given by the job (fpj − fpbt), if any."""
     strand = girder.job.strand
@@ -213,7 +241,7 @@ def aashto_approximate(girder: Girder) -> LossBreakdown:
             clause + " (ΔfpR)",
         ),
     ]
-    notes = []
+    notes = low_humidity_notes(girder, "aashto-approximate", "γh = 1.7 − 0.01 H of Eq. 5.9.3.3-2")
     if not low:
         notes.append(
             "ΔfpR for stress-relieved strand taken as 10 ksi (5.9.3.3, from memory); "

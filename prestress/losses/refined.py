@@ -14,7 +14,12 @@ from prestress.codes.aashto_lrfd import losses as aashto
 from prestress.codes.aashto_lrfd import refined_losses as rl
 from prestress.errors import InputError
 from prestress.losses import LossBreakdown, LossComponent, register
-from prestress.losses.pretensioned import before_transfer, elastic_shortening_component, finish
+from prestress.losses.pretensioned import (
+    before_transfer,
+    elastic_shortening_component,
+    finish,
+    low_humidity_notes,
+)
 from prestress.units import INCH_MM, KIP_N, KSI_MPA, in_both
 
 if TYPE_CHECKING:
@@ -248,6 +253,9 @@ def aashto_refined(girder: Girder) -> LossBreakdown:
         f"deck f'ci = 0.80 f'c ({CLAUSE} 5.4.2.3.2) and a loading age of the deck of "
         f"{inp.t_i_deck:g} day for ψd; the deck's V/S with its soffit over the top flange "
         "not exposed (common practice)",
+        *low_humidity_notes(
+            girder, "aashto-refined", "khc and khs of Eqs. 5.4.2.3.2-3 and 5.4.2.3.3-2 in 5.9.3.4"
+        ),
     ]
     return finish(
         girder,
