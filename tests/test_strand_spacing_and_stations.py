@@ -352,3 +352,21 @@ def test_time_step_humidity_notes_unchanged(tmp_path: Path) -> None:
         "time-step-aci209 method: RH = 30 % is below 40 %, the lowest humidity for which "
         "ACI 209R-92 2.5.4 gives its creep and shrinkage correction factors"
     ]
+
+
+def test_every_station_the_checks_name_is_a_reserved_name() -> None:
+    """The reserved names cover every station the engine names (so they cannot drift apart):
+    every station of every shipped example, its merged parts each."""
+    from prestress.analysis import resolve_girder
+    from prestress.jobfile import _DEBOND_END_STATION, BUILT_IN_STATION_NAMES
+    from prestress.stages import stations
+    from tests.conftest import EXAMPLES
+
+    for path in sorted(EXAMPLES.glob("*.toml")):
+        girder = resolve_girder(load_job(path))
+        for st in stations(girder):
+            for part in st.name.split(" / "):
+                assert part in BUILT_IN_STATION_NAMES or _DEBOND_END_STATION.fullmatch(part), (
+                    path.name,
+                    part,
+                )
