@@ -1577,9 +1577,16 @@ def search(
             (util[passing], enum.debonded_length[passing], enum.special[passing], strands[passing])
         )
     ]
+    from prestress.jobfile import _closest_on_paths
+
+    crossing = 0
     for checked, i in enumerate(order):
         if len(best) >= space.report or checked >= space.report + 20:
             break
+        rows = list(ev.candidate(int(i)).rows)
+        if _closest_on_paths(rows, job.length, job.strand.diameter - 1e-6) is not None:
+            crossing += 1  # a harped path through another strand: the layout cannot be built
+            continue
         rc = _ranked(ev, int(i), util[i], cache=cache)
         if rc.ok:
             best.append(rc)
@@ -1588,6 +1595,11 @@ def search(
                 f"candidate {int(i)} passed the vectorised check (utilisation {util[i]:.12g}) "
                 f"but not the full check ({rc.utilisation:.12g}); left out"
             )
+    if crossing:
+        notes.append(
+            f"{crossing} passing pattern(s) left out: a harped strand's rising path would pass "
+            "through another strand (harp the top strands of the central columns)"
+        )
     next_leaner = None
     closest = None
     if best:
@@ -1644,6 +1656,14 @@ def load_job_and_design(path: str | Path) -> tuple[Job, Any]:
 def design_file(path: str | Path, *, cli_libraries: tuple[str, ...] = ()) -> DesignResult:
     """Load a job file with its ``[design]`` table and search (behind ``prestress design``)."""
     job, design = load_job_and_design(path)
+    if job.post_tensioned:
+        raise InputError(
+            "a pretensioned job (strand rows or a strand grid): the search covers strand "
+            "patterns, not tendons",
+            file=str(path),
+            field="tendons",
+            got="a post-tensioned girder",
+        )
     result, _ev = search(job, design, file=str(path), cli_libraries=cli_libraries)
     return result
 

@@ -8,6 +8,7 @@ key. The job-file format is documented in ``docs/job-file.md`` and by the exampl
 from __future__ import annotations
 
 import itertools
+import math
 import re
 from contextvars import ContextVar
 from pathlib import Path
@@ -873,15 +874,17 @@ def _check_strand_overlap(
     rows: list[StrandRow],
     fields: list[dict[str, str]],
     diameter: float,
+    length: float,
     *,
     file: str,
     units: str,
 ) -> None:
     """Refuse two strands closer than one strand diameter, centre to centre (they would overlap).
 
-    Checked at midlength and at the girder ends (where harped strands stand in their column on
-    the axis). Strands touching (exactly one diameter apart) are accepted here; a spacing less
-    than the detailing minimum of AASHTO LRFD 5.10.3.3.1 is a note of the check
+    Checked at midlength, at the girder ends (where harped strands stand in their column on
+    the axis) and along the harped strands' paths in between (:func:`_closest_on_paths`).
+    Strands touching (exactly one diameter apart) are accepted here; a spacing less than the
+    detailing minimum of AASHTO LRFD 5.10.3.3.1 is a note of the check
     (:func:`prestress.analysis.strand_spacing_notes`), not an error.
 
     Args:
@@ -890,6 +893,7 @@ def _check_strand_overlap(
             strands at midlength, "end_within" and "end_cross" for its harped strands at the
             ends (two of its own, one of another row's).
         diameter: the strand diameter, mm.
+        length: the girder length, mm.
         file: the job file.
         units: the job's units ("US" or "SI"), those of the message.
     """
@@ -928,6 +932,101 @@ def _check_strand_overlap(
             got=f"two strands {show(dist)} apart {where}: x = {show(pa[0])}, "
             f"y = {show(pa[1])}{of_a} and x = {show(pb[0])}, y = {show(pb[1])}{of_b}",
         )
+    # between the hold-downs and the ends a harped strand rises (and moves to the axis): it
+    # may not pass through another strand there either
+    clash = _closest_on_paths(rows, length, diameter - 1e-6)
+    if clash is not None:
+        dist, station, (a, pa), (b, pb) = clash
+        harped = b if rows[b].harp is not None else a
+        raise InputError(
+            "harped strands whose rising path passes no other strand closer than one strand "
+            f"diameter ({show(diameter)}), centre to centre: harp the top strands of the "
+            "central columns",
+            file=file,
+            field=f"{fields[harped]['row']}.harp",
+            got=f"two strands {show(dist)} apart at {show_position(station, units)} from the "
+            f"left end: x = {show(pa[0])}, y = {show(pa[1])} ({fields[a]['row']}) and "
+            f"x = {show(pb[0])}, y = {show(pb[1])} ({fields[b]['row']})",
+        )
+
+
+_Point = tuple[float, float]
+
+
+def _harped_paths(rows: list[StrandRow]) -> list[tuple[int, _Point, _Point, tuple[float, float]]]:
+    """Each harped strand's path: (row, place at the hold-downs, place at the end, hold-downs).
+
+    In mm; the k-th strand nearest the axis goes to the k-th place from the top of the end
+    column (as :func:`build_layout` orders them).
+    """
+    out = []
+    for i, row in enumerate(rows):
+        if row.harp is None:
+            continue
+        top, hold_downs, step = row.harp
+        xs = [float(x) for x in (row.x if row.x else row.x_positions())]
+        for k, x in enumerate(sorted(xs, key=abs)):
+            out.append((i, (x, float(row.height)), (0.0, float(top - k * step)), hold_downs))
+    return out
+
+
+def _closest_on_paths(
+    rows: list[StrandRow], length: float, below: float
+) -> tuple[float, float, tuple[int, _Point], tuple[int, _Point]] | None:
+    """The first two strands nearer than ``below`` (mm) between a hold-down and an end.
+
+    Exact for the usual cases: a harped strand runs straight from its place between the
+    hold-downs (parameter t = 0) to its place in the end column (t = 1), x and y linear in
+    the distance along the girder, so against a straight strand the least distance is that
+    of a point to a segment, and against another harped strand with the same hold-downs
+    (same t at every station) the least of |D0 + t (D1 − D0)|; harped rows with other
+    hold-downs are compared at 200 stations. Returns (distance, station on the left side
+    where it occurs, (row, x-y there) of each strand) or None.
+    """
+    paths = _harped_paths(rows)
+    if not paths:
+        return None
+    straight = [
+        (i, (float(x), float(row.height)))
+        for i, row in enumerate(rows)
+        if row.harp is None
+        for x in (row.x if row.x else row.x_positions())
+    ]
+
+    def at(p0: _Point, p1: _Point, t: float) -> _Point:
+        return (p0[0] + t * (p1[0] - p0[0]), p0[1] + t * (p1[1] - p0[1]))
+
+    def closest_t(d0: _Point, d1: _Point) -> float:
+        """t in [0, 1] minimising |d0 + t (d1 − d0)|."""
+        dx, dy = d1[0] - d0[0], d1[1] - d0[1]
+        den = dx * dx + dy * dy
+        return 0.0 if den == 0.0 else min(1.0, max(0.0, -(d0[0] * dx + d0[1] * dy) / den))
+
+    for k, (i, a0, a1, hd) in enumerate(paths):
+        for j, q in straight:  # d(t) = a(t) − q, linear in t
+            t = closest_t((a0[0] - q[0], a0[1] - q[1]), (a1[0] - q[0], a1[1] - q[1]))
+            p = at(a0, a1, t)
+            d = math.hypot(p[0] - q[0], p[1] - q[1])
+            if 0.0 < t < 1.0 and d < below:
+                return d, hd[0] * (1.0 - t), (i, p), (j, q)
+        for i2, b0, b1, hd2 in paths[k + 1 :]:
+            if hd2 == hd:
+                ts = [closest_t((a0[0] - b0[0], a0[1] - b0[1]), (a1[0] - b1[0], a1[1] - b1[1]))]
+            else:  # other hold-downs: t differs at a station; compare at stations
+                ts = []
+                for station in np.linspace(0.0, max(hd[0], hd2[0]), 201)[1:-1]:
+                    ta = max(0.0, 1.0 - station / hd[0])
+                    tb = max(0.0, 1.0 - station / hd2[0])
+                    pa, pb = at(a0, a1, ta), at(b0, b1, tb)
+                    if math.hypot(pa[0] - pb[0], pa[1] - pb[1]) < below:
+                        return math.hypot(pa[0] - pb[0], pa[1] - pb[1]), station, (i, pa), (i2, pb)
+                continue
+            t = ts[0]
+            pa, pb = at(a0, a1, t), at(b0, b1, t)
+            d = math.hypot(pa[0] - pb[0], pa[1] - pb[1])
+            if 0.0 < t < 1.0 and d < below:
+                return d, hd[0] * (1.0 - t), (i, pa), (i2, pb)
+    return None
 
 
 #: Names of the stations every check lists itself (:func:`prestress.stages.stations`); a
@@ -1253,7 +1352,7 @@ def _read_job(path: Path, top: Table) -> Job:
         grid_rows = _grid_rows(grid, len(rows))
         rows += grid_rows
         fields += [{"row": grid.path, "within": grid.field("positions")}] * len(grid_rows)
-    _check_strand_overlap(rows, fields, strand.diameter, file=file, units=units)
+    _check_strand_overlap(rows, fields, strand.diameter, length, file=file, units=units)
     if not rows and not tendons:
         raise st.error(
             "rows", "at least one [[strands.rows]] table or a [strands.grid]", "no strands"

@@ -518,3 +518,12 @@ def test_write_with_no_passing_pattern_shows_the_search_and_writes_nothing(
     captured = capsys.readouterr()
     assert "No pattern of the space passes" in captured.out
     assert "not written" in captured.err and not out.exists()
+
+
+def test_design_of_a_post_tensioned_job_is_a_clear_error(capsys) -> None:
+    """The search is for strand patterns; a job with tendons gets exit 2, not a crash."""
+    from prestress.cli import main
+
+    assert main(["design", str(EXAMPLES / "corrie-beck-g1-post-tensioned.toml")]) == 2
+    err = capsys.readouterr().err
+    assert "tendons" in err and "internal error" not in err

@@ -89,19 +89,18 @@ final = "20000 day"
 set = "aashto-lrfd-9th-service"
 """
 
-#: Further rows of the design job: straight rows in the bulb and two harped pairs in the web.
+#: Further rows of the design job: straight rows in the bulb, clear of the harped 4 in row's
+#: column (x = ±1 in), so that no harped path passes through them.
 DESIGN_ROWS = """
 [[strands.rows]]
 height = "6 in"
-count = 8
+positions = ["-7 in", "-5 in", "-3 in", "3 in", "5 in", "7 in"]
 [[strands.rows]]
 height = "8 in"
-count = 2
-harp = { end_height = "60 in", hold_down = 0.4 }
+positions = ["-3 in", "3 in"]
 [[strands.rows]]
 height = "10 in"
-count = 2
-harp = { end_height = "56 in", hold_down = 0.4 }
+positions = ["-3 in", "3 in"]
 """
 
 
@@ -267,3 +266,49 @@ def test_design_never_harps_a_strand_out_of_the_web(tmp_path) -> None:
     assert not any(
         h["harped"] > 4 for i in range(ev.enum.size) for h in ev.candidate(i).by_height()
     )
+
+
+# ------------------------------------------------------------------------------------------
+# Harped paths may not pass through other strands (a user review)
+
+
+def test_a_harped_path_through_a_straight_strand_is_found_exactly() -> None:
+    """Point-to-segment distance worked by hand (geometry, common practice): the strand
+    harped from (3, 2) in to (0, 66) in passes (3, 6) in at 4 × 3 / √(3² + 64²) = 0.187 in."""
+    from prestress.jobfile import _closest_on_paths
+    from prestress.model import StrandRow
+
+    L, hd = 100.0 * FT, (40.0 * FT, 60.0 * FT)
+    harped = StrandRow(2 * IN, 1, 0.0, (3 * IN,), (66 * IN, hd, 2 * IN))
+    straight = StrandRow(6 * IN, 1, 0.0, (3 * IN,))
+    found = _closest_on_paths([harped, straight], L, 0.6 * IN)
+    assert found is not None
+    d, station, (a, _pa), (b, pb) = found
+    assert d / IN == pytest.approx(4 * 3 / (3**2 + 64**2) ** 0.5, rel=1e-9)
+    assert (a, b) == (0, 1) and pb == (3 * IN, 6 * IN) and 0 < station < hd[0]
+    far = StrandRow(6 * IN, 1, 0.0, (7 * IN,))
+    assert _closest_on_paths([harped, far], L, 0.6 * IN) is None
+
+
+def test_crossing_harped_rows_are_refused(tmp_path) -> None:
+    """Rows that swap places in the bundle (8 in to the top of the end column, 12 in lower)
+    cross on the way: an error naming the harp (the shipped example keeps its order)."""
+    text = HARPED.read_text(encoding="utf-8")
+    text = text.replace('end_height = "58 in"', 'end_height = "TOP"').replace(
+        'end_height = "66 in"', 'end_height = "58 in"'
+    )
+    text = text.replace('end_height = "TOP"', 'end_height = "66 in"')
+    with pytest.raises(InputError) as info:
+        load_job(write_job(tmp_path, text))
+    assert info.value.field.endswith(".harp") and "rising path" in str(info.value)
+
+
+def test_design_leaves_out_patterns_whose_harped_paths_cross_strands() -> None:
+    from prestress.design import design_file
+    from prestress.jobfile import _closest_on_paths
+
+    result = design_file(HARPED)
+    job = result.job
+    for rc in result.best:
+        rows = list(rc.candidate.rows)
+        assert _closest_on_paths(rows, job.length, job.strand.diameter - 1e-6) is None
