@@ -30,3 +30,15 @@ def test_engineering_notation_keeps_four_figures(mm3: float, text: str) -> None:
 
 def test_negative_numbers_carry_a_true_minus() -> None:
     assert fmt(-1.5, "SI", "stress") == "−1.50"
+
+
+@pytest.mark.parametrize(
+    ("u", "text"),
+    [(0.956, "0.96"), (1.0, "1.00"), (1.0005, "1.0005"), (1.0048, "1.005"), (1.006, "1.01")],
+)
+def test_a_failing_utilisation_never_reads_1_00(u: float, text: str) -> None:
+    """A stress 0.05 % over its limit fails: the table must not print it as 1.00 (a review)."""
+    from prestress.present.common import use_text
+
+    assert use_text(u) == text
+    assert use_text(float("inf")) == ">1" and use_text(None) == "—"

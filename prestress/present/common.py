@@ -35,6 +35,24 @@ def quantity(v: float | None, system: str, role: str) -> dict[str, Any] | None:
     return {"value": value(v, system, role), "unit": ascii_label(label(system, role))}
 
 
+def use_text(u: float | None) -> str:
+    """A utilisation (stress / limit) for tables, two decimals, never "1.00" for a failure.
+
+    A value above 1 by less than 0.5 % gets more decimals (1.0005 → "1.0005"); ">1" for a
+    zero limit exceeded; "—" for None.
+    """
+    if u is None:
+        return "—"
+    if u == float("inf"):
+        return ">1"
+    text = f"{u:.2f}"
+    digits = 2
+    while u > 1.0 and float(text) <= 1.0 and digits < 6:
+        digits += 1
+        text = f"{u:.{digits}f}"
+    return text
+
+
 def station_matches(name: str, words: tuple[str, ...]) -> bool:
     """Whether a station's name contains one of the words (``--stations``; any case)."""
     return any(w.lower() in name.lower() for w in words)

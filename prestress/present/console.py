@@ -25,6 +25,7 @@ from prestress.present.common import (
     signed,
     stage_limits,
     station_matches,
+    use_text,
 )
 
 PASS = "[green]ok[/]"
@@ -371,7 +372,7 @@ def stage_table(stage: StageResult, number: int, system: str) -> Group:
     for s in stage.stations:
         gov = s.governing()
         gov_text = SHORT_FIBER[gov[0]] if gov else "—"
-        use = "—" if gov is None else (">1" if gov[1] == float("inf") else f"{gov[1]:.2f}")
+        use = "—" if gov is None else use_text(gov[1])
         t.add_row(
             Text(s.name),
             Text(fmt(s.x_bearing if is_service else s.x, system, "position", 2)),
@@ -420,7 +421,7 @@ def summary(result: CheckResult) -> Table:
                 continue
             st, u, fr = best
             ok = fr.ok
-            use = ">1" if u == float("inf") else f"{u:.2f}"
+            use = use_text(u)
             t.add_row(title, FIBER_NAMES[fiber], st.name, use, PASS if ok else FAIL)
         t.add_section()
     return t

@@ -8,7 +8,7 @@ from rich import box
 from rich.table import Table
 
 from prestress.losses import LossBreakdown, LossComponent
-from prestress.present.common import fmt, label, quantity, signed
+from prestress.present.common import fmt, label, quantity, signed, use_text
 
 #: Mechanisms, in the order a loss table lists them, and what they are called.
 MECHANISMS = {
@@ -319,7 +319,7 @@ def tendon_limit_table(checks: list[Any], system: str) -> Table:
             fmt(c.x, system, "position", 2),
             fmt(c.stress, system, "stress", 1),
             f"{c.limit_text} = {fmt(c.limit, system, 'stress', 1)}",
-            f"{c.ratio:.2f}",
+            use_text(c.ratio),
             "ok" if c.ok else "[bold red]EXCEEDED[/]",
         )
     return tab

@@ -45,6 +45,7 @@ from prestress.present.common import (
     loads_caption,
     signed,
     stage_limits,
+    use_text,
     value,
 )
 
@@ -188,7 +189,7 @@ def _strength(stage: StageResult, system: str) -> str:
 def _use(f: FiberResult) -> str:
     if f.utilisation is None:
         return "—" if f.ok else ">1"
-    return f"{abs(f.utilisation) if abs(f.utilisation) < 0.005 else f.utilisation:.2f}"
+    return use_text(abs(f.utilisation) if abs(f.utilisation) < 0.005 else f.utilisation)
 
 
 def _figure_text(name: str, v: float, role: str, system: str) -> str:
@@ -1457,7 +1458,7 @@ def _governing(result: CheckResult, system: str) -> Section:
                     _c(st.name),
                     _n(signed(fr.stress, system, "stress")),
                     _n(_s(limit, system)),
-                    Cell(">1" if u == float("inf") else f"{u:.2f}", f"num {cls}"),
+                    Cell(use_text(u), f"num {cls}"),
                     _c("ok" if fr.ok else "FAIL", cls),
                 )
             )
