@@ -421,8 +421,8 @@ def _check_strands_inside(job: Job, outline: ResolvedSection) -> list[str]:
     rings = [np.asarray(outline.exterior, dtype=float)]
     rings += [np.asarray(h, dtype=float) for h in outline.holes]
 
-    def ok(x: float, y: float, r: float) -> bool:
-        return _inside(rings, x, y) and _distance_to_edges(rings, x, y) >= r
+    def ok(x: float, y: float, r: float) -> bool:  # a cover of exactly r, to round-off, is r
+        return _inside(rings, x, y) and _distance_to_edges(rings, x, y) >= r - 1e-6
 
     for i, t in enumerate(job.tendons):
         prof = t.profile()
@@ -437,18 +437,26 @@ def _check_strands_inside(job: Job, outline: ResolvedSection) -> list[str]:
                     got=f"a point at y = {show_dimension(y, job.units)} on the girder axis",
                 )
     for i, row in enumerate(job.rows):
-        points = [(float(x), row.height) for x in row.x_positions()]
+        points = [(float(x), row.height, False) for x in row.x_positions()]
         if row.harp is not None:  # at the ends: one column on the axis
-            points += [(0.0, row.harp[0] - k * row.harp[2]) for k in range(row.count)]
-        for x, y in points:
+            points += [(0.0, row.harp[0] - k * row.harp[2], True) for k in range(row.count)]
+        for x, y, at_end in points:
             if not ok(x, y, job.strand.diameter / 2.0):
+                where = f"x = {show_dimension(x, job.units)}, y = {show_dimension(y, job.units)}"
+                if at_end:
+                    raise InputError(
+                        "the end column of the harped strands inside the concrete with a strand "
+                        "radius of cover (end_height, and end_spacing below it, on the axis)",
+                        file=job.file,
+                        field=f"strands.rows[{i}].harp.end_height",
+                        got=f"a strand at the girder ends at {where} outside the section",
+                    )
                 raise InputError(
                     "every strand inside the concrete (row width (count − 1) × spacing must fit "
                     "the section at that height)",
                     file=job.file,
                     field=f"strands.rows[{i}]",
-                    got=f"a strand at x = {show_dimension(x, job.units)}, "
-                    f"y = {show_dimension(y, job.units)} outside the section",
+                    got=f"a strand at {where} outside the section",
                 )
     return strand_spacing_notes(job)
 

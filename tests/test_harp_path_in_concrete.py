@@ -312,3 +312,20 @@ def test_design_leaves_out_patterns_whose_harped_paths_cross_strands() -> None:
     for rc in result.best:
         rows = list(rc.candidate.rows)
         assert _closest_on_paths(rows, job.length, job.strand.diameter - 1e-6) is None
+
+
+@pytest.mark.parametrize(("end", "ok"), [("71.7 in", True), ("71.8 in", False)])
+def test_end_column_at_the_top_cover(tmp_path, end: str, ok: bool) -> None:
+    """BT-72, 0.6 in strands: the highest end place may have exactly its radius of cover
+    (72 − 0.3 = 71.7 in; common practice); above it the error names the harp's end_height."""
+    path = bt72(tmp_path, 2)
+    path.write_text(
+        path.read_text(encoding="utf-8").replace('end_height = "66 in"', f'end_height = "{end}"'),
+        encoding="utf-8",
+    )
+    if ok:
+        resolve_girder(load_job(path))
+        return
+    with pytest.raises(InputError) as info:
+        resolve_girder(load_job(path))
+    assert info.value.field == "strands.rows[1].harp.end_height"
