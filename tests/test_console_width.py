@@ -79,3 +79,14 @@ def test_time_step_history_fits_80_columns(tmp_path: Path, monkeypatch: pytest.M
     )
     job = write_job(tmp_path, text)
     _assert_fits(["losses", str(job), "--at", "1 day,100 day,3 year,54 year"], monkeypatch)
+
+
+def test_tendon_limit_table_with_a_failure_fits_80_columns(
+    tmp_path: Path, monkeypatch: pytest.MonkeyPatch
+) -> None:
+    pt = EXAMPLES / "corrie-beck-g1-post-tensioned.toml"
+    text = pt.read_text(encoding="utf-8").replace(
+        'jacking_stress = "195 ksi"', 'jacking_stress = "205 ksi"', 1
+    )
+    job = write_job(tmp_path, text)
+    _assert_fits(["losses", str(job)], monkeypatch)

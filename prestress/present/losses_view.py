@@ -299,10 +299,14 @@ def tendon_limit_table(checks: list[Any], system: str) -> Table:
         "anchor set; effective: after anchor set, elastic shortening and the final "
         "time-dependent losses given in the job.",
         caption_justify="left",
+        collapse_padding=True,
+        pad_edge=False,
     )
     for col in ("Tendon", "Condition", "Where", "x", "Stress", "Limit", "Ratio", ""):
-        if col in ("Tendon", "Condition", "Where"):  # words longer than the column fold
-            tab.add_column(col, overflow="fold")
+        if col == "Tendon":
+            tab.add_column(col, no_wrap=True)
+        elif col in ("Condition", "Where"):  # wrap at words; a word longer than this folds
+            tab.add_column(col, overflow="fold", min_width=11)
         else:
             tab.add_column(col, justify="right", no_wrap=True)
     short = {
@@ -320,7 +324,7 @@ def tendon_limit_table(checks: list[Any], system: str) -> Table:
             fmt(c.stress, system, "stress", 1),
             f"{c.limit_text} = {fmt(c.limit, system, 'stress', 1)}",
             use_text(c.ratio),
-            "ok" if c.ok else "[bold red]EXCEEDED[/]",
+            "ok" if c.ok else "[bold red]FAIL[/]",
         )
     return tab
 
