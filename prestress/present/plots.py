@@ -335,7 +335,7 @@ def plot_stresses(result: CheckResult, path: str | os.PathLike[str], system: str
         0.12 / height,
         f"Fiber stresses in {su}, {SIGN_CONVENTION}. Limits: C compression, T tension."
         + (
-            " Curves with the mean prestress; the check takes the prestress × the limit "
+            "\nCurves with the mean prestress; the check takes the prestress × the limit "
             "set's factors (the stage tables)."
             if factored
             else ""
@@ -1082,8 +1082,12 @@ def plot_magnel(
     k = math.ceil(-math.log10(u_design)) if u_design > 0 else 0
     scale = 10.0**k / force_unit  # internal 1/N → displayed 10^k / (kip or kN)
     E = lambda e: value(e, system, "dimension")  # noqa: E731
-    fig = _figure(8.0, 5.6)
-    ax = fig.add_axes((0.1, 0.36, 0.86, 0.56))
+    # the legend (one entry per line, region, design point) below the axes: the figure grows
+    # with it, the axes keep their size (3.14 in high)
+    extra = 0.2 * max(0, len(setup.lines) + 2 - 7)
+    height = 5.6 + extra
+    fig = _figure(8.0, height)
+    ax = fig.add_axes((0.1, (2.02 + extra) / height, 0.86, 3.14 / height))
     _style_axes(ax)
     e_lo, e_hi = -setup.yt, setup.yb
     vs = [v * scale for _, v in corners] or [setup.u * scale]
@@ -1111,7 +1115,7 @@ def plot_magnel(
             [E(e) for e in es],
             us,
             color=colours[i % 6],
-            ls=styles[i % 6],
+            ls=styles[(i + i // 6) % 6],  # a colour and style pair of its own for 36 lines
             lw=1.2,
             label=_inequality_text(ln, system),
             zorder=3,
