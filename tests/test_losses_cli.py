@@ -156,7 +156,7 @@ def test_a_girder_without_deck_is_not_described_with_one(tmp_path: Path, capsys)
     assert "Added dead load on the girder (no deck)" in out
     assert "Deck placement on the girder alone" not in out
     assert "Composite: deck transformed" not in out and "No deck: every load" in out
-    assert "Other non-composite load" in out and "Deck: other non-composite load" in out
+    assert "Other non-composite load" in out and "Other: other non-composite load" in out
 
 
 def test_transformed_sections_show_the_force_the_stages_apply(tmp_path: Path, capsys) -> None:

@@ -297,7 +297,7 @@ def loads_table(
             + (
                 "Deck: deck and haunch"
                 if result.girder.job.deck is not None
-                else "Deck: other non-composite load (no deck)"
+                else "Other: other non-composite load (no deck)"
             )
             + "; DC: barriers and other superimposed dead load; "
             f"DW: wearing surface. {loads_caption(result)}"
@@ -307,7 +307,8 @@ def loads_table(
     t.add_column("Station", overflow="fold", min_width=8)
     t.add_column("x", justify="right", no_wrap=True)
     for k in keys:
-        t.add_column(LOAD_SHORT[k], justify="right", no_wrap=True)
+        head = "Other" if k == "deck" and result.girder.job.deck is None else LOAD_SHORT[k]
+        t.add_column(head, justify="right", no_wrap=True)
     if le.shear_live is not None:
         t.add_column("V max", justify="right", no_wrap=True)
         t.add_column("V min", justify="right", no_wrap=True)
