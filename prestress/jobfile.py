@@ -691,7 +691,9 @@ def _hold_downs(h: Table, length: float) -> tuple[float, float]:
         if isinstance(raw, int | float) and not isinstance(raw, bool):
             if not 0.0 < raw <= 0.5:
                 raise h.error(
-                    "hold_down", "a fraction of the girder length from 0 to 0.5", str(raw)
+                    "hold_down",
+                    "a fraction of the girder length above 0 and at most 0.5",
+                    str(raw),
                 )
             a = raw * length
         else:
@@ -1487,7 +1489,11 @@ def _read_job(path: Path, top: Table) -> Job:
         t_ = Table(item, file=file, path=f"stations[{i}]")
         x = t_.quantity("at", "length", non_negative=True)
         if x > length:
-            raise t_.error("at", "a position on the girder, from its left end")
+            raise t_.error(
+                "at",
+                f"a position on the girder, from its left end (0 to {_long(length)})",
+                _long(x),
+            )
         user_stations.append((_station_name(t_, i, station_names), x))
         t_.done()
 

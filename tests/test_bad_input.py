@@ -85,6 +85,12 @@ CASES = [
         ["limits.file", "no file"],
     ),
     (
+        "user station beyond the girder",
+        "[loads]\n",
+        '[[stations]]\nname = "splice"\nat = "90 ft"\n\n[loads]\n',
+        ["stations[0].at", "0 to 82.00 ft", "got 90.00 ft"],
+    ),
+    (
         "debond count disagrees with positions",
         'count = 12\nspacing = "2 in"\n',
         'count = 12\nspacing = "2 in"\n'
