@@ -223,3 +223,16 @@ def test_cli_75_years_against_27375_days(girder_75, capsys) -> None:
     assert code == 0 and "taken as the final age 27375 d" in _flat(out)
     code, out, err = _run(["losses", str(job), "--at", "75.1 year"], capsys)
     assert code == 2 and "--at" in err
+
+
+def test_time_step_aashto_notes_f_c_beyond_15_ksi_like_the_refined_estimate(tmp_path: Path) -> None:
+    """AASHTO LRFD 5.4.2.3 (from memory: up to 15.0 ksi specified strength): the time-step
+    method with the same equations notes f'c above it too (it noted only f'ci; a review)."""
+    strong = (('fc = "8.5 ksi"', 'fc = "16 ksi"'), _method("time-step-aashto"))
+    girder = resolve_girder(load_job(_job(tmp_path, *strong)))
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        b = compute_losses(girder)
+    assert any(
+        n.startswith("time-step-aashto method: f'c of the girder = 16.00 ksi") for n in b.notes
+    )

@@ -507,6 +507,14 @@ def make_method(model_name: str):
 
     def method(girder: Girder) -> LossBreakdown:
         job = girder.job
+        if model_name == "aashto":  # the soft limit of 5.4.2.3 on f'c, as the refined estimate
+            from prestress.codes.aashto_lrfd.refined_losses import warn_strengths_beyond_range
+
+            deck_fc = job.deck.concrete.fc if job.deck is not None else None
+            warn_strengths_beyond_range(
+                job.girder_concrete.fc / KSI_MPA,
+                None if deck_fc is None else deck_fc / KSI_MPA,
+            )
         res, ages = analyse(girder, model_name)
         assert job.layout is not None
         areas = np.array([s.total_area for s in job.layout.sets])

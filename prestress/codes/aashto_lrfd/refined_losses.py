@@ -537,6 +537,22 @@ class RefinedLossResult:
     delta_f_pLT: float
 
 
+def warn_strengths_beyond_range(f_c: float, f_c_deck: float | None) -> None:
+    """Warn where a specified strength (ksi) exceeds that of the 5.4.2.3 equations.
+
+    AASHTO LRFD 9th Ed. (2020) 5.4.2.3.1 (from memory): the creep and shrinkage equations
+    are stated for specified concrete strengths up to 15.0 ksi; beyond it the estimates are
+    extrapolated (a soft limit: a warning, which a loss method turns into its note).
+    """
+    for name, value in (("f'c of the girder", f_c), ("f'c of the deck", f_c_deck)):
+        if value is not None and value > cs.F_C_UPPER_KSI:
+            warnings.warn(
+                f"{name} = {ksi_mpa(value)} exceeds {ksi_mpa(cs.F_C_UPPER_KSI)}, the upper "
+                "strength of the AASHTO LRFD 5.4.2.3 creep and shrinkage equations",
+                stacklevel=3,
+            )
+
+
 def refined_losses(inp: RefinedLossInput) -> RefinedLossResult:
     """AASHTO LRFD 9th Ed. (2020) 5.9.3.4: refined estimate of time-dependent losses.
 
@@ -572,13 +588,7 @@ def refined_losses(inp: RefinedLossInput) -> RefinedLossResult:
         f_c=inp.f_c,
         f_c_deck=inp.f_c_deck,
     )
-    for name, value in (("f'c of the girder", inp.f_c), ("f'c of the deck", inp.f_c_deck)):
-        if value > cs.F_C_UPPER_KSI:
-            warnings.warn(
-                f"{name} = {ksi_mpa(value)} exceeds {ksi_mpa(cs.F_C_UPPER_KSI)}, the upper "
-                "strength of the AASHTO LRFD 5.4.2.3 creep and shrinkage equations",
-                stacklevel=2,
-            )
+    warn_strengths_beyond_range(inp.f_c, inp.f_c_deck)
     f_ci_d = 0.80 * inp.f_c_deck if inp.f_ci_deck is None else inp.f_ci_deck
 
     # Correction factors (5.4.2.3.2, 5.4.2.3.3)
