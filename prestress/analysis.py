@@ -10,7 +10,7 @@ compression negative; eccentricity positive below the centroid; sagging moment p
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass, field
+from dataclasses import dataclass, field, replace
 from pathlib import Path
 
 import numpy as np
@@ -476,6 +476,8 @@ class FiberResult:
         utilisation: stress / limit of the same sign (None when no limit of that sign applies).
         ok: whether the fiber passes.
         limit_text: the limits in words, e.g. "0.65 f'ci; 0.24√f'ci (ksi)".
+        prestress_factor: where the limit set factors the prestress (EN 1992-1-1 5.10.9), the
+            factor of the case that governs this fiber; None for the mean prestress alone.
     """
 
     stress: float
@@ -484,6 +486,7 @@ class FiberResult:
     utilisation: float | None
     ok: bool
     limit_text: str
+    prestress_factor: float | None = None  # the limit set's factor on P that governs, if any
 
     def rank(self) -> tuple[float, float] | None:
         """How close the fiber is to its limits, to find the governing one (larger: closer).
@@ -841,8 +844,10 @@ def station_results(girder: Girder, spec, raw) -> list[StationResult]:  # type: 
             else:
                 fiber_strength, fiber_sym = strength, sym
             governing: FiberResult | None = None
-            for _factor, stresses in cases:
+            for factor, stresses in cases:
                 fr = check_fiber(float(stresses[fiber][i]), limit, fiber_strength, fiber_sym)
+                if len(cases) > 1:
+                    fr = replace(fr, prestress_factor=factor)
                 r = fr.rank()
                 if governing is None or (r is not None and rank_beats(r, governing.rank())):
                     governing = fr

@@ -556,3 +556,26 @@ def test_magnel_diagram_takes_the_factors(tmp_path: Path) -> None:
         st = next(s for s in stages[stage].stations if abs(s.x - setup.x) < 1e-6)
         assert feasible == st.fibers[fiber].ok, (stage, fiber)
     assert not all(by_fiber.values())  # this girder fails with the lower factor
+
+
+def test_json_says_which_factor_governs_each_fiber(tmp_path: Path) -> None:
+    """The JSON stress is that of the governing case: its factor is given beside it (a review
+    found no way to tell from the force), null for the mean prestress alone."""
+    from prestress.analysis import check_file
+    from prestress.present.jsonout import to_dict
+
+    data = to_dict(check_file(write_rect(tmp_path)), "SI")
+    factors = {
+        f["prestress_factor"]
+        for stage in data["stages"]
+        for st in stage["stations"]
+        for f in st["fibers"].values()
+    }
+    assert factors <= {0.95, 1.05, None} and {0.95, 1.05} <= factors
+    mean = to_dict(check_file(write_rect(tmp_path, factors="", name="mean.toml")), "SI")
+    assert all(
+        f["prestress_factor"] is None
+        for stage in mean["stages"]
+        for st in stage["stations"]
+        for f in st["fibers"].values()
+    )

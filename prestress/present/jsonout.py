@@ -24,6 +24,7 @@ def _fiber(f: FiberResult, system: str) -> dict[str, Any]:
         "limit_rule": f.limit_text,
         "utilisation": f.utilisation,
         "ok": f.ok,
+        "prestress_factor": f.prestress_factor,
     }
 
 
