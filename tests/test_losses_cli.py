@@ -179,3 +179,16 @@ def test_transformed_sections_show_the_force_the_stages_apply(tmp_path: Path, ca
     assert "Applied to the transformed section" in out and f"P {P:,.1f} kip" in out
     midspan = next(s for s in r.stages if s.key == "service_permanent").stations
     assert any(abs(st.force / 4448.2216152605 - P) < 0.05 for st in midspan)
+
+
+def test_report_of_a_girder_without_deck_names_its_load(tmp_path: Path) -> None:
+    """The report's stage tables head the added load 'other non-composite' without a deck."""
+    from prestress.analysis import check_file
+    from prestress.present.report import build, render_markdown
+
+    start, end = BASE.index("[deck]"), BASE.index("[strand]")
+    job = tmp_path / "nodeck.toml"
+    job.write_text(BASE[:start] + BASE[end:], encoding="utf-8")
+    title, sections, _ = build(check_file(job), job_text=job.read_bytes())
+    md = render_markdown(title, sections)
+    assert "M other non-composite (" in md and "M deck (" not in md

@@ -1292,7 +1292,7 @@ _SHORT_FIBER = {"girder_bottom": "bottom", "girder_top": "top", "deck_top": "dec
 _MOMENTS = ("girder", "deck", "diaphragms", "superimposed", "live")
 
 
-def _stage_blocks(stage: StageResult, number: int, system: str) -> list:
+def _stage_blocks(stage: StageResult, number: int, system: str, *, no_deck: bool = False) -> list:
     fibers = [
         f
         for f in ("girder_bottom", "girder_top", "deck_top")
@@ -1312,7 +1312,9 @@ def _stage_blocks(stage: StageResult, number: int, system: str) -> list:
     if service:
         head.append(f"x from bearing ({pu})")
     head += [f"P ({fu})", f"e ({du})", f"cgs ({du})"]
-    head += [f"M {k} ({mu})" for k in loads] + [f"M total ({mu})"]
+    head += [
+        f"M {'other non-composite' if k == 'deck' and no_deck else k} ({mu})" for k in loads
+    ] + [f"M total ({mu})"]
     rows = []
     for s in stage.stations:
         cells = [_c(s.name), _n(_f(s.x, system, "position", 2))]
@@ -1415,7 +1417,7 @@ def _stresses(result: CheckResult, system: str) -> Section:
         )
     )
     for i, stage in enumerate(result.stages, 1):
-        sec.blocks += _stage_blocks(stage, i, system)
+        sec.blocks += _stage_blocks(stage, i, system, no_deck=result.girder.job.deck is None)
     return sec
 
 
