@@ -188,14 +188,10 @@ def resolve_girder(job: Job, *, cli_libraries: tuple[str, ...] = ()) -> Girder:
 
 
 def _with_haunch_width(deck, width):  # type: ignore[no-untyped-def]
-    from dataclasses import replace
-
     return replace(deck, haunch_width=width)
 
 
 def _replace_deck(job: Job, deck) -> Job:  # type: ignore[no-untyped-def]
-    from dataclasses import replace
-
     return replace(job, deck=deck)
 
 
@@ -207,8 +203,6 @@ def _with_distribution_factor(job: Job, gross: GrossProperties, comp, n_deck: fl
     with the skew correction of Table 4.6.2.2.3c-1 applied along the whole span (the table
     gives it for the obtuse corner; applying it everywhere errs on the safe side).
     """
-    from dataclasses import replace
-
     live = job.loads.live
     moment_wanted = live.model == "HL-93" and live.distribution_factor is None
     shear_wanted = (
@@ -888,8 +882,6 @@ def deck_shrinkage_left_out(girder: Girder, losses: LossBreakdown, all_stations)
     apply the stresses (``[loads] deck_shrinkage = 0``): the highest utilisation of the final
     service stages with them applied in full, as a condition of the verdict.
     """
-    from dataclasses import replace
-
     from prestress.stages import stage_specs, stage_stresses
 
     job = girder.job
@@ -999,8 +991,6 @@ def deck_shrinkage_notes(girder: Girder, losses: LossBreakdown) -> list[str]:
         return [f"{text}; applied × {factor:g} in the final service stages"]
     if not any(c.key == "deck_shrinkage_gain" for c in losses.components):
         return []
-    from dataclasses import replace
-
     one = replace(girder, job=replace(job, loads=replace(job.loads, deck_shrinkage=1.0)))
     f = deck_shrinkage_stresses(one)
     return [

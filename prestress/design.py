@@ -1577,14 +1577,14 @@ def search(
             (util[passing], enum.debonded_length[passing], enum.special[passing], strands[passing])
         )
     ]
-    from prestress.jobfile import _closest_on_paths
+    from prestress.jobfile import closest_on_paths
 
     crossing = 0
     for checked, i in enumerate(order):
         if len(best) >= space.report or checked >= space.report + 20:
             break
         rows = list(ev.candidate(int(i)).rows)
-        if _closest_on_paths(rows, job.length, job.strand.diameter - 1e-6) is not None:
+        if closest_on_paths(rows, job.length, job.strand.diameter - 1e-6) is not None:
             crossing += 1  # a harped path through another strand: the layout cannot be built
             continue
         rc = _ranked(ev, int(i), util[i], cache=cache)

@@ -884,7 +884,7 @@ def _check_strand_overlap(
     """Refuse two strands closer than one strand diameter, centre to centre (they would overlap).
 
     Checked at midlength, at the girder ends (where harped strands stand in their column on
-    the axis) and along the harped strands' paths in between (:func:`_closest_on_paths`).
+    the axis) and along the harped strands' paths in between (:func:`closest_on_paths`).
     Strands touching (exactly one diameter apart) are accepted here; a spacing less than the
     detailing minimum of AASHTO LRFD 5.10.3.3.1 is a note of the check
     (:func:`prestress.analysis.strand_spacing_notes`), not an error.
@@ -936,7 +936,7 @@ def _check_strand_overlap(
         )
     # between the hold-downs and the ends a harped strand rises (and moves to the axis): it
     # may not pass through another strand there either
-    clash = _closest_on_paths(rows, length, diameter - 1e-6)
+    clash = closest_on_paths(rows, length, diameter - 1e-6)
     if clash is not None:
         dist, station, (a, pa), (b, pb) = clash
         harped = b if rows[b].harp is not None else a
@@ -972,7 +972,7 @@ def _harped_paths(rows: list[StrandRow]) -> list[tuple[int, _Point, _Point, tupl
     return out
 
 
-def _closest_on_paths(
+def closest_on_paths(
     rows: list[StrandRow], length: float, below: float
 ) -> tuple[float, float, tuple[int, _Point], tuple[int, _Point]] | None:
     """The first two strands nearer than ``below`` (mm) between a hold-down and an end.

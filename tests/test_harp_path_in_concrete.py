@@ -275,19 +275,19 @@ def test_design_never_harps_a_strand_out_of_the_web(tmp_path) -> None:
 def test_a_harped_path_through_a_straight_strand_is_found_exactly() -> None:
     """Point-to-segment distance worked by hand (geometry, common practice): the strand
     harped from (3, 2) in to (0, 66) in passes (3, 6) in at 4 × 3 / √(3² + 64²) = 0.187 in."""
-    from prestress.jobfile import _closest_on_paths
+    from prestress.jobfile import closest_on_paths
     from prestress.model import StrandRow
 
     L, hd = 100.0 * FT, (40.0 * FT, 60.0 * FT)
     harped = StrandRow(2 * IN, 1, 0.0, (3 * IN,), (66 * IN, hd, 2 * IN))
     straight = StrandRow(6 * IN, 1, 0.0, (3 * IN,))
-    found = _closest_on_paths([harped, straight], L, 0.6 * IN)
+    found = closest_on_paths([harped, straight], L, 0.6 * IN)
     assert found is not None
     d, station, (a, _pa), (b, pb) = found
     assert d / IN == pytest.approx(4 * 3 / (3**2 + 64**2) ** 0.5, rel=1e-9)
     assert (a, b) == (0, 1) and pb == (3 * IN, 6 * IN) and 0 < station < hd[0]
     far = StrandRow(6 * IN, 1, 0.0, (7 * IN,))
-    assert _closest_on_paths([harped, far], L, 0.6 * IN) is None
+    assert closest_on_paths([harped, far], L, 0.6 * IN) is None
 
 
 def test_crossing_harped_rows_are_refused(tmp_path) -> None:
@@ -305,13 +305,13 @@ def test_crossing_harped_rows_are_refused(tmp_path) -> None:
 
 def test_design_leaves_out_patterns_whose_harped_paths_cross_strands() -> None:
     from prestress.design import design_file
-    from prestress.jobfile import _closest_on_paths
+    from prestress.jobfile import closest_on_paths
 
     result = design_file(HARPED)
     job = result.job
     for rc in result.best:
         rows = list(rc.candidate.rows)
-        assert _closest_on_paths(rows, job.length, job.strand.diameter - 1e-6) is None
+        assert closest_on_paths(rows, job.length, job.strand.diameter - 1e-6) is None
 
 
 @pytest.mark.parametrize(("end", "ok"), [("71.7 in", True), ("71.8 in", False)])
