@@ -90,3 +90,14 @@ def test_tendon_limit_table_with_a_failure_fits_80_columns(
     )
     job = write_job(tmp_path, text)
     _assert_fits(["losses", str(job)], monkeypatch)
+
+
+def test_a_long_job_path_folds_in_the_header(
+    tmp_path: Path, monkeypatch: pytest.MonkeyPatch
+) -> None:
+    """The job file's path is one word: at 80 columns it folds instead of being cut (a clone
+    in a longer folder lost its end)."""
+    deep = tmp_path / ("a-rather-long-folder-name-for-the-project-files" * 2)
+    deep.mkdir()
+    job = write_job(deep, (EXAMPLES / "brannoch-creek-span2-g3.toml").read_text(encoding="utf-8"))
+    _assert_fits(["check", str(job)], monkeypatch)

@@ -42,7 +42,7 @@ def _kv_table(rows: list[tuple[str, str]], title: str) -> Table:
         pad_edge=False,
     )
     t.add_column(style="dim", no_wrap=True)
-    t.add_column()
+    t.add_column(overflow="fold")  # a long file path folds rather than being cut
     for k, v in rows:
         t.add_row(k, v)
     return t
